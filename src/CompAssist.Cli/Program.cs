@@ -1,1 +1,3 @@
-return 0;
+using CompAssist.Cli;
+
+return CliApplication.Run(args, Console.Out, Console.Error);

@@ -1,0 +1,283 @@
+using System.Globalization;
+using System.Numerics;
+using System.Text.RegularExpressions;
+using CompAssist.Core.Model;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Targets;
+using Tomlyn;
+using Tomlyn.Model;
+
+namespace CompAssist.Core.Cases;
+
+/// <summary>
+/// Reads case files. Schema (format 1), every key optional unless marked:
+/// <code>
+/// format = 1                       # required; the schema version
+/// name = "..."                     # short scenario name
+/// description = "..."
+/// [loop]
+/// plant = "10/(s(s+2))"            # required (here or on the command line)
+/// feedback = "1"                   # sensor H(s)
+/// sign = "negative"                # or "positive"
+/// pade_order = 3                   # 1…10, for delays in root finding
+/// [requirements]
+/// overshoot_percent = 10           # percent
+/// settling_time = 2.0              # seconds
+/// settling_band = 2                # 2 or 5 (percent)
+/// peak_time = 1.0                  # seconds
+/// zeta = 0.5                       # with natural_frequency
+/// natural_frequency = 4.0          # rad/s
+/// target = [-2.0, 3.464]           # [re, im], overrides the region corner
+/// [compensator]
+/// type = "lead"
+/// placement = "bisector"           # beneath | bisector | cancel | fixed-zero | fixed-pole | ratio
+/// zero = -3.0                      # fixed-zero location, or the plant pole to cancel
+/// pole = -20.0                     # fixed-pole location
+/// ratio = 10.0                     # pole/zero ratio
+/// max_stage_angle_deg = 60         # per-stage lead limit
+/// </code>
+/// Unknown keys are errors (a misspelt key must not be silently ignored).
+/// </summary>
+public static partial class CaseFileReader
+{
+    private static readonly Dictionary<string, string[]> KnownKeys = new()
+    {
+        [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator"],
+        ["loop"] = ["plant", "feedback", "sign", "pade_order"],
+        ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target"],
+        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg"],
+    };
+
+    /// <summary>Reads a case file from disk.</summary>
+    public static (CaseFile? Case, CaseFileError? Error) ReadFile(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        string text;
+        try
+        {
+            text = File.ReadAllText(path);
+        }
+        catch (IOException e)
+        {
+            return (null, new CaseFileError(path, $"Cannot read the case file: {e.Message}", "Check the path."));
+        }
+        catch (UnauthorizedAccessException e)
+        {
+            return (null, new CaseFileError(path, $"Cannot read the case file: {e.Message}", "Check the file permissions."));
+        }
+
+        return Read(text, path);
+    }
+
+    /// <summary>Reads a case file from text; <paramref name="source"/> labels errors.</summary>
+    public static (CaseFile? Case, CaseFileError? Error) Read(string text, string source)
+    {
+        ArgumentNullException.ThrowIfNull(text);
+        TomlTable root;
+        try
+        {
+            root = TomlSerializer.Deserialize<TomlTable>(text) ?? new TomlTable();
+        }
+        catch (TomlException e)
+        {
+            var m = PositionPattern().Match(e.Message);
+            int? line = m.Success ? int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture) : null;
+            int? column = m.Success ? int.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture) : null;
+            return (null, new CaseFileError(source, "TOML syntax error: " + e.Message, "Fix the TOML syntax at that position.", line, column));
+        }
+
+        var reader = new TableReader(source);
+        var result = reader.Build(root);
+        return reader.Error is null ? (result, null) : (null, reader.Error);
+    }
+
+    [GeneratedRegex(@"\((\d+),(\d+)\)")]
+    private static partial Regex PositionPattern();
+
+    private sealed class TableReader(string source)
+    {
+        public CaseFileError? Error { get; private set; }
+
+        public CaseFile? Build(TomlTable root)
+        {
+            foreach (var (section, keys) in KnownKeys)
+            {
+                var table = section.Length == 0 ? root : Table(root, section);
+                if (table is null)
+                {
+                    continue;
+                }
+
+                foreach (var key in table.Keys)
+                {
+                    if (!keys.Contains(key))
+                    {
+                        var where = section.Length == 0 ? "at the top level" : $"in [{section}]";
+                        return Fail($"Unknown key '{key}' {where}", $"Known keys there: {string.Join(", ", keys)}.");
+                    }
+                }
+            }
+
+            if (!root.TryGetValue("format", out var formatValue))
+            {
+                return Fail("The case file has no 'format' key", $"Add 'format = {CaseFile.CurrentFormat}' at the top.");
+            }
+
+            if (formatValue is not long format)
+            {
+                return Fail("'format' must be a whole number", $"Write 'format = {CaseFile.CurrentFormat}'.");
+            }
+
+            if (format != CaseFile.CurrentFormat)
+            {
+                return Fail(
+                    $"Case-file format {format} is not supported by this version (it reads format {CaseFile.CurrentFormat})",
+                    format > CaseFile.CurrentFormat ? "Use a newer CompAssist." : "Re-create the case with this version.");
+            }
+
+            var loop = Table(root, "loop");
+            var req = Table(root, "requirements");
+            var comp = Table(root, "compensator");
+            if (Error is not null)
+            {
+                return null;
+            }
+
+            var sign = String(loop, "loop", "sign") ?? "negative";
+            if (sign is not ("negative" or "positive"))
+            {
+                return Fail($"[loop] sign = \"{sign}\" is not a feedback sign", "Use \"negative\" or \"positive\".");
+            }
+
+            var band = Number(req, "requirements", "settling_band") ?? 2;
+            if (band is not (2 or 5))
+            {
+                return Fail($"[requirements] settling_band = {band} is not supported", "Use 2 or 5 (percent).");
+            }
+
+            Complex? target = null;
+            if (req is not null && req.TryGetValue("target", out var t))
+            {
+                if (t is TomlArray { Count: 2 } arr && ToDouble(arr[0]) is { } re && ToDouble(arr[1]) is { } im)
+                {
+                    target = new Complex(re, im);
+                }
+                else
+                {
+                    return Fail("[requirements] target must be [re, im]", "Write for example target = [-2.0, 3.46].");
+                }
+            }
+
+            var placementText = String(comp, "compensator", "placement") ?? "bisector";
+            var placement = PlacementNames.TryParse(placementText);
+            if (placement is null)
+            {
+                return Fail($"[compensator] placement = \"{placementText}\" is not a placement", $"Use one of: {string.Join(", ", PlacementNames.All)}.");
+            }
+
+            var padeOrder = Number(loop, "loop", "pade_order") ?? 3;
+            if (Error is not null)
+            {
+                return null;
+            }
+
+            return new CaseFile
+            {
+                Name = String(root, string.Empty, "name") ?? string.Empty,
+                Description = String(root, string.Empty, "description") ?? string.Empty,
+                Plant = String(loop, "loop", "plant"),
+                Feedback = String(loop, "loop", "feedback") ?? "1",
+                Sign = sign == "positive" ? FeedbackSign.Positive : FeedbackSign.Negative,
+                PadeOrder = (int)padeOrder,
+                Requirements = new Requirements
+                {
+                    MaxOvershootPercent = Number(req, "requirements", "overshoot_percent"),
+                    MaxSettlingTime = Number(req, "requirements", "settling_time"),
+                    Band = band == 5 ? SettlingBand.FivePercent : SettlingBand.TwoPercent,
+                    MaxPeakTime = Number(req, "requirements", "peak_time"),
+                    Zeta = Number(req, "requirements", "zeta"),
+                    NaturalFrequency = Number(req, "requirements", "natural_frequency"),
+                    Point = target,
+                },
+                CompensatorType = String(comp, "compensator", "type") ?? "lead",
+                Lead = new LeadOptions
+                {
+                    Placement = placement.Value,
+                    Zero = Number(comp, "compensator", "zero"),
+                    Pole = Number(comp, "compensator", "pole"),
+                    Ratio = Number(comp, "compensator", "ratio"),
+                    MaxStageAngleDegrees = Number(comp, "compensator", "max_stage_angle_deg") ?? LeadOptions.DefaultMaxStageAngleDegrees,
+                },
+            } is var result && Error is null ? result : null;
+        }
+
+        private TomlTable? Table(TomlTable root, string name)
+        {
+            if (!root.TryGetValue(name, out var value))
+            {
+                return null;
+            }
+
+            if (value is TomlTable table)
+            {
+                return table;
+            }
+
+            Fail($"'{name}' must be a table", $"Write it as a [{name}] section.");
+            return null;
+        }
+
+        private string? String(TomlTable? table, string section, string key)
+        {
+            if (table is null || !table.TryGetValue(key, out var value))
+            {
+                return null;
+            }
+
+            if (value is string s)
+            {
+                return s;
+            }
+
+            Fail($"{Where(section, key)} must be a string", $"Put the value in double quotes, e.g. {key} = \"...\".");
+            return null;
+        }
+
+        private double? Number(TomlTable? table, string section, string key)
+        {
+            if (table is null || !table.TryGetValue(key, out var value))
+            {
+                return null;
+            }
+
+            if (ToDouble(value) is { } d)
+            {
+                if (!double.IsFinite(d))
+                {
+                    Fail($"{Where(section, key)} is not finite", "Give a finite number.");
+                    return null;
+                }
+
+                return d;
+            }
+
+            Fail($"{Where(section, key)} must be a number", $"Write it without quotes, e.g. {key} = 2.5.");
+            return null;
+        }
+
+        private static double? ToDouble(object? value) => value switch
+        {
+            long l => l,
+            double d => d,
+            _ => null,
+        };
+
+        private static string Where(string section, string key) => section.Length == 0 ? $"'{key}'" : $"[{section}] {key}";
+
+        private CaseFile? Fail(string message, string hint)
+        {
+            Error ??= new CaseFileError(source, message, hint);
+            return null;
+        }
+    }
+}

@@ -1,0 +1,276 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using MathNet.Numerics.LinearAlgebra;
+
+namespace CompAssist.Core.Numerics;
+
+/// <summary>
+/// Root finding that never silently lies: balanced companion-matrix eigenvalues as seeds, Newton polishing
+/// on the accurate (usually factored) evaluation, and every root checked by its residual.
+/// </summary>
+public static class RootFinder
+{
+    /// <summary>Largest accepted relative residual |f(r)|/scale(r); beyond it the roots are refused.</summary>
+    public const double ResidualLimit = 1e-9;
+
+    private const int MaxNewtonSteps = 12;
+
+    /// <summary>Roots of an expanded polynomial, polished by Horner evaluation with backward-error scale.</summary>
+    /// <exception cref="ArgumentException">The polynomial is zero.</exception>
+    /// <exception cref="RootFindingException">The roots do not pass their residual check.</exception>
+    public static RootReport Find(Polynomial polynomial)
+    {
+        ArgumentNullException.ThrowIfNull(polynomial);
+        if (polynomial.IsZero)
+        {
+            throw new ArgumentException("The zero polynomial has no finite root set.", nameof(polynomial));
+        }
+
+        return Find(new ExpandedRootFunction(polynomial));
+    }
+
+    /// <summary>Roots of a function given in its accurate form.</summary>
+    /// <exception cref="RootFindingException">The roots do not pass their residual check.</exception>
+    public static RootReport Find(IRootFunction function)
+    {
+        ArgumentNullException.ThrowIfNull(function);
+        if (function.Degree == 0)
+        {
+            return new RootReport([], 0.0, 0.0);
+        }
+
+        var seedPolynomial = function.ExpandForSeeds();
+        if (seedPolynomial.Degree != function.Degree)
+        {
+            throw new RootFindingException(
+                $"Expanded polynomial has degree {seedPolynomial.Degree}, expected {function.Degree}: the leading coefficient vanished.");
+        }
+
+        var seeds = Seeds(seedPolynomial);
+        var polished = new List<Complex>(function.Degree);
+        var maxResidual = 0.0;
+        var maxStep = 0.0;
+        foreach (var seed in seeds)
+        {
+            var (root, residual, step) = Polish(function, seed, seeds);
+            polished.Add(root);
+            if (root.Imaginary != 0.0)
+            {
+                polished.Add(Complex.Conjugate(root));
+            }
+
+            maxResidual = Math.Max(maxResidual, residual);
+            maxStep = Math.Max(maxStep, step);
+        }
+
+        if (polished.Count != function.Degree)
+        {
+            throw new RootFindingException($"Found {polished.Count} roots for a function of degree {function.Degree}.");
+        }
+
+        if (!(maxResidual <= ResidualLimit))
+        {
+            throw new RootFindingException(
+                $"Roots failed their residual check (relative residual {maxResidual:G3} > {ResidualLimit:G1}); the problem is too ill-conditioned.");
+        }
+
+        return new RootReport(ConjugateSymmetry.Canonical(polished), maxResidual, maxStep);
+    }
+
+    /// <summary>
+    /// Seeds from the eigenvalues of the balanced companion matrix: the real ones and the upper half of
+    /// the conjugate pairs (the lower half is implied).
+    /// </summary>
+    internal static List<Complex> Seeds(Polynomial p)
+    {
+        var n = p.Degree;
+        var result = new List<Complex>(n);
+        var c = p.Ascending;
+        var lead = c[n];
+        if (n == 1)
+        {
+            result.Add(new Complex(-c[0] / lead, 0.0));
+            return result;
+        }
+
+        if (n == 2)
+        {
+            var b = c[1] / lead;
+            var q = c[0] / lead;
+            var disc = (b * b) - (4 * q);
+            if (disc >= 0)
+            {
+                var t = -0.5 * (b + (Math.Sign(b == 0 ? 1.0 : b) * Math.Sqrt(disc)));
+                var r1 = t;
+                var r2 = t != 0.0 ? q / t : 0.0;
+                result.Add(new Complex(r1, 0.0));
+                result.Add(new Complex(r2, 0.0));
+            }
+            else
+            {
+                result.Add(new Complex(-b / 2, Math.Sqrt(-disc) / 2));
+            }
+
+            return result;
+        }
+
+        var a = new double[n, n];
+        for (var j = 0; j < n; j++)
+        {
+            a[0, j] = -c[n - 1 - j] / lead;
+        }
+
+        for (var i = 1; i < n; i++)
+        {
+            a[i, i - 1] = 1.0;
+        }
+
+        CompanionBalancer.Balance(a);
+        var eig = Matrix<double>.Build.DenseOfArray(a).Evd(MathNet.Numerics.LinearAlgebra.Symmetricity.Asymmetric).EigenValues;
+        var uppers = new List<Complex>();
+        var lowers = new List<Complex>();
+        foreach (var e in eig)
+        {
+            if (e.Imaginary == 0.0)
+            {
+                result.Add(e);
+            }
+            else if (e.Imaginary > 0)
+            {
+                uppers.Add(e);
+            }
+            else
+            {
+                lowers.Add(e);
+            }
+        }
+
+        // The eigen-solver returns exact conjugate pairs for a real matrix; if it did not, unmatched
+        // members are taken as real seeds so that the count stays right.
+        if (uppers.Count != lowers.Count)
+        {
+            uppers.Sort((x, y) => x.Imaginary.CompareTo(y.Imaginary));
+            lowers.Sort((x, y) => y.Imaginary.CompareTo(x.Imaginary));
+            while (uppers.Count > lowers.Count)
+            {
+                result.Add(new Complex(uppers[0].Real, 0.0));
+                uppers.RemoveAt(0);
+            }
+
+            while (lowers.Count > uppers.Count)
+            {
+                result.Add(new Complex(lowers[0].Real, 0.0));
+                lowers.RemoveAt(0);
+            }
+        }
+
+        result.AddRange(uppers);
+        return result;
+    }
+
+    /// <summary>
+    /// Newton polishing of one seed. A step is kept only while it lowers the residual, and a root that
+    /// wanders more than half-way to another seed is taken back (it was converging onto a neighbour).
+    /// </summary>
+    private static (Complex Root, double Residual, double Step) Polish(IRootFunction f, Complex seed, List<Complex> seeds)
+    {
+        var isReal = seed.Imaginary == 0.0;
+        var x = seed;
+        var (v, d, scale) = f.Evaluate(x);
+        var best = x;
+        var bestResidual = Relative(v, scale);
+        var lastStep = d != Complex.Zero ? Complex.Abs(v / d) : 0.0;
+        var neighbour = NearestOtherSeed(seed, seeds);
+        for (var i = 0; i < MaxNewtonSteps && bestResidual > 0.0; i++)
+        {
+            if (d == Complex.Zero)
+            {
+                break;
+            }
+
+            var step = v / d;
+            var next = x - step;
+            if (isReal)
+            {
+                next = new Complex(next.Real, 0.0);
+            }
+
+            if (Complex.Abs(next - seed) > 0.5 * neighbour)
+            {
+                break;
+            }
+
+            var (nv, nd, ns) = f.Evaluate(next);
+            var nr = Relative(nv, ns);
+            lastStep = Complex.Abs(step);
+            if (!(nr < bestResidual))
+            {
+                break;
+            }
+
+            x = next;
+            v = nv;
+            d = nd;
+            best = next;
+            bestResidual = nr;
+            if (Complex.Abs(step) <= 2e-16 * Complex.Abs(next))
+            {
+                break;
+            }
+        }
+
+        if (d != Complex.Zero)
+        {
+            lastStep = Complex.Abs(v / d);
+        }
+
+        if (!isReal && Math.Abs(best.Imaginary) <= ConjugateSymmetry.RealTolerance * Complex.Abs(best))
+        {
+            // A pair that polished onto the real axis (a double real root): keep it a pair, marginally off.
+            best = new Complex(best.Real, Math.Max(Math.Abs(best.Imaginary), double.Epsilon));
+        }
+
+        var magnitude = Math.Max(Complex.Abs(best), double.Epsilon);
+        return (best, bestResidual, lastStep / magnitude);
+    }
+
+    private static double NearestOtherSeed(Complex seed, List<Complex> seeds)
+    {
+        var nearest = double.PositiveInfinity;
+        foreach (var other in seeds)
+        {
+            if (other == seed)
+            {
+                continue;
+            }
+
+            nearest = Math.Min(nearest, Complex.Abs(other - seed));
+            if (other.Imaginary != 0.0)
+            {
+                nearest = Math.Min(nearest, Complex.Abs(Complex.Conjugate(other) - seed));
+            }
+        }
+
+        if (seed.Imaginary != 0.0)
+        {
+            nearest = Math.Min(nearest, 2 * Math.Abs(seed.Imaginary));
+        }
+
+        return double.IsPositiveInfinity(nearest) ? Math.Max(Complex.Abs(seed), 1.0) : nearest;
+    }
+
+    private static double Relative(Complex value, double scale) =>
+        scale > 0.0 ? Complex.Abs(value) / scale : (value == Complex.Zero ? 0.0 : double.PositiveInfinity);
+
+    private sealed class ExpandedRootFunction(Polynomial p) : IRootFunction
+    {
+        private readonly Polynomial _derivative = p.Derivative();
+
+        public int Degree => p.Degree;
+
+        public Polynomial ExpandForSeeds() => p;
+
+        public (Complex Value, Complex Derivative, double Scale) Evaluate(Complex s) =>
+            (p.Evaluate(s), _derivative.Evaluate(s), p.EvaluateAbsolute(Complex.Abs(s)));
+    }
+}

@@ -1,0 +1,187 @@
+using System.Numerics;
+using System.Text;
+using System.Text.Json;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Workflow;
+
+namespace CompAssist.Core.Reporting;
+
+/// <summary>
+/// The design report for programs (the stable machine interface). Polynomial coefficients are in
+/// descending powers of s; complex numbers are <c>{re, im}</c>; infinities are the strings "inf"/"-inf".
+/// </summary>
+public static class DesignJsonReport
+{
+    /// <summary>Renders a proved design as indented JSON.</summary>
+    public static string Render(DesignReport report)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            Write(w, report);
+        }
+
+        return Encoding.UTF8.GetString(stream.ToArray());
+    }
+
+    private static void Write(Utf8JsonWriter w, DesignReport report)
+    {
+        var design = report.Design;
+        var target = report.Selection.Target;
+        var proof = report.Proof;
+        var c = design.Compensator;
+        w.WriteStartObject();
+
+        w.WriteStartObject("loop");
+        w.WriteString("plant", design.Loop.Plant.ToString());
+        w.WriteString("feedback", design.Loop.Feedback.ToString());
+        w.WriteString("sign", design.Loop.Sign == Model.FeedbackSign.Negative ? "negative" : "positive");
+        Number(w, "delay", design.Loop.Delay);
+        w.WriteEndObject();
+
+        w.WriteStartObject("target");
+        Number(w, "re", target.Point.Real);
+        Number(w, "im", target.Point.Imaginary);
+        Number(w, "sigma", target.Sigma);
+        Number(w, "omegaD", target.DampedFrequency);
+        Number(w, "zeta", target.Zeta);
+        Number(w, "wn", target.NaturalFrequency);
+        w.WriteString("source", report.Selection.Source);
+        w.WriteBoolean("insideRegion", report.Selection.InsideRegion);
+        w.WriteStartArray("region");
+        foreach (var rc in report.Selection.Constraints)
+        {
+            w.WriteStartObject();
+            w.WriteString("name", rc.Name);
+            w.WriteString("description", rc.Description);
+            Number(w, "required", rc.Required);
+            Number(w, "actual", rc.Actual);
+            Number(w, "margin", rc.Margin);
+            w.WriteBoolean("satisfied", rc.Satisfied);
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
+        var p = target.Predict();
+        w.WriteStartObject("prediction");
+        Number(w, "overshootPercent", p.OvershootPercent);
+        Number(w, "peakTime", p.PeakTime);
+        Number(w, "settlingTime2", p.SettlingTime2Percent);
+        Number(w, "settlingTime5", p.SettlingTime5Percent);
+        Number(w, "riseTime0To100", p.RiseTimeZeroToHundred);
+        w.WriteEndObject();
+        w.WriteEndObject();
+
+        w.WriteStartObject("compensator");
+        w.WriteString("type", "lead");
+        w.WriteString("placement", PlacementNames.NameOf(design.Placement));
+        Number(w, "gain", c.Gain);
+        w.WriteString("gainForm", "factored: C(s) = gain · Π(s − zeros) / Π(s − poles)");
+        w.WriteStartObject("gains");
+        Number(w, "factored", c.Gain);
+        Number(w, "dc", c.DcGain);
+        Number(w, "highFrequency", c.HighFrequencyGain);
+        w.WriteEndObject();
+        Complexes(w, "zeros", c.TransferFunction.Zeros);
+        Complexes(w, "poles", c.TransferFunction.Poles);
+        Numbers(w, "numerator", c.TransferFunction.Numerator.ToDescending());
+        Numbers(w, "denominator", c.TransferFunction.Denominator.ToDescending());
+        w.WriteString("expression", c.TransferFunction.ToString());
+        Number(w, "angleDeficiencyDeg", design.AngleDeficiencyDegrees);
+        w.WriteStartArray("stages");
+        foreach (var st in c.Stages)
+        {
+            w.WriteStartObject();
+            w.WriteString("kind", "lead");
+            Number(w, "zero", st.Zero);
+            Number(w, "pole", st.Pole);
+            Number(w, "angleDeg", st.AngleAtTargetDegrees);
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
+        w.WriteStartArray("notes");
+        foreach (var n in design.Notes)
+        {
+            w.WriteStringValue(n);
+        }
+
+        w.WriteEndArray();
+        w.WriteEndObject();
+
+        w.WriteStartObject("closedLoop");
+        Numbers(w, "characteristic", proof.CharacteristicDescending);
+        w.WriteStartArray("poles");
+        foreach (var r in proof.Roots)
+        {
+            w.WriteStartObject();
+            Number(w, "re", r.Value.Real);
+            Number(w, "im", r.Value.Imaginary);
+            Number(w, "zeta", r.Zeta);
+            Number(w, "wn", r.NaturalFrequency);
+            w.WriteString("role", r.Role switch { RootRole.Dominant => "dominant", RootRole.Cancelled => "cancelled", _ => "other" });
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
+        Complexes(w, "zeros", proof.ClosedLoopZeros);
+        w.WriteBoolean("targetConfirmed", proof.TargetConfirmed);
+        Number(w, "targetResidual", proof.UsesPade ? proof.TargetResidualExactDelay : proof.TargetResidual);
+        Number(w, "targetRootDistance", proof.TargetRootDistance);
+        Number(w, "maxRootResidual", proof.RootEvidence.MaxRelativeResidual);
+        Number(w, "dominanceRatio", proof.DominanceRatio);
+        w.WriteBoolean("stable", proof.Stable);
+        w.WriteBoolean("usesPade", proof.UsesPade);
+        w.WriteStartArray("warnings");
+        foreach (var warning in proof.Warnings)
+        {
+            w.WriteStringValue(warning);
+        }
+
+        w.WriteEndArray();
+        w.WriteEndObject();
+
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    /// <summary>Writes a number, or "inf"/"-inf"/"nan" as a string.</summary>
+    internal static void Number(Utf8JsonWriter w, string name, double x)
+    {
+        if (double.IsFinite(x))
+        {
+            w.WriteNumber(name, x);
+        }
+        else
+        {
+            w.WriteString(name, double.IsNaN(x) ? "nan" : (x > 0 ? "inf" : "-inf"));
+        }
+    }
+
+    private static void Numbers(Utf8JsonWriter w, string name, IEnumerable<double> xs)
+    {
+        w.WriteStartArray(name);
+        foreach (var x in xs)
+        {
+            w.WriteNumberValue(x);
+        }
+
+        w.WriteEndArray();
+    }
+
+    private static void Complexes(Utf8JsonWriter w, string name, IEnumerable<Complex> zs)
+    {
+        w.WriteStartArray(name);
+        foreach (var z in zs)
+        {
+            w.WriteStartObject();
+            w.WriteNumber("re", z.Real);
+            w.WriteNumber("im", z.Imaginary);
+            w.WriteEndObject();
+        }
+
+        w.WriteEndArray();
+    }
+}

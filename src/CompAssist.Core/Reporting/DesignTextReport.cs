@@ -1,0 +1,116 @@
+using System.Globalization;
+using System.Numerics;
+using System.Text;
+using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Workflow;
+
+namespace CompAssist.Core.Reporting;
+
+/// <summary>The design report for people: plain text, 80 columns.</summary>
+public static class DesignTextReport
+{
+    /// <summary>Renders a proved design.</summary>
+    public static string Render(DesignReport report, string title = "")
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        var sb = new StringBuilder();
+        var design = report.Design;
+        var loop = design.Loop;
+        var target = report.Selection.Target;
+        var proof = report.Proof;
+
+        sb.AppendLine(title.Length > 0 ? $"CompAssist lead design — {title}" : "CompAssist lead design");
+        sb.AppendLine();
+        sb.AppendLine("Loop");
+        sb.AppendLine($"  plant     G(s) = {loop.Plant}");
+        sb.AppendLine($"  feedback  H(s) = {loop.Feedback}   ({(loop.Sign == FeedbackSign.Negative ? "negative feedback, 180° angle condition" : "positive feedback, 0° angle condition")})");
+        sb.AppendLine();
+
+        sb.AppendLine("Target (dominant closed-loop pole)");
+        sb.AppendLine($"  s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j   σ = {N(target.Sigma)} 1/s   ωd = {N(target.DampedFrequency)} rad/s   ζ = {N(target.Zeta, 4)}   ωn = {N(target.NaturalFrequency)} rad/s");
+        sb.AppendLine($"  chosen as: {report.Selection.Source}");
+        foreach (var c in report.Selection.Constraints)
+        {
+            sb.AppendLine($"  region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}  {(c.Satisfied ? "inside" : "OUTSIDE")}");
+        }
+
+        var p = target.Predict();
+        sb.AppendLine($"  second-order predictions (not measurements): overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s,");
+        sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ), rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
+        sb.AppendLine();
+
+        sb.AppendLine($"Synthesis (lead, placement: {PlacementNames.NameOf(design.Placement)})");
+        foreach (var note in design.Notes)
+        {
+            sb.AppendLine($"  {note}");
+        }
+
+        var i = 1;
+        foreach (var st in design.Compensator.Stages)
+        {
+            sb.AppendLine($"  stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*");
+        }
+
+        var c0 = design.Compensator;
+        sb.AppendLine($"  C(s) = {c0.TransferFunction}");
+        sb.AppendLine($"  gains: factored K = {N(c0.Gain)} (multiplies Π(s−z)/Π(s−p); also the high-frequency gain)");
+        sb.AppendLine($"         DC gain C(0) = {N(c0.DcGain)}");
+        sb.AppendLine($"  magnitude condition at s*: |C·G·H| = 1 with K = {N(c0.Gain)}");
+        sb.AppendLine();
+
+        sb.AppendLine("Proof (closed loop, all roots by root finding)");
+        sb.AppendLine($"  characteristic polynomial (descending powers): {string.Join("  ", proof.CharacteristicDescending.Select(x => N(x)))}");
+        sb.AppendLine("  closed-loop poles:");
+        foreach (var r in proof.Roots.Where(r => r.Value.Imaginary >= 0))
+        {
+            var pair = r.Value.Imaginary > 0 ? $"{N(r.Value.Real)} ± {N(r.Value.Imaginary)}j" : N(r.Value.Real);
+            var role = r.Role switch
+            {
+                RootRole.Dominant => "target (dominant)",
+                RootRole.Cancelled => "on a closed-loop zero",
+                _ => string.Empty,
+            };
+            sb.AppendLine($"    {pair,-28} ζ {N(r.Zeta, 3),-7} ωn {N(r.NaturalFrequency, 4),-9} {role}");
+        }
+
+        var residual = proof.UsesPade ? proof.TargetResidualExactDelay : proof.TargetResidual;
+        sb.AppendLine(proof.TargetConfirmed
+            ? $"  target confirmed as a closed-loop root: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away"
+            : $"  TARGET NOT CONFIRMED: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away");
+        sb.AppendLine($"  roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}");
+        sb.AppendLine($"  dominance ratio (slowest other pole's σ / target σ): {(double.IsPositiveInfinity(proof.DominanceRatio) ? "no other poles" : N(proof.DominanceRatio, 3))}");
+        var zeros = proof.ClosedLoopZeros.Where(z => z.Imaginary >= 0).Select(Pair).ToList();
+        sb.AppendLine($"  closed-loop zeros: {(zeros.Count == 0 ? "none" : string.Join(", ", zeros))}");
+        sb.AppendLine($"  stable: {(proof.Stable ? "yes" : "NO")}");
+        sb.AppendLine();
+
+        if (proof.Warnings.Length > 0)
+        {
+            sb.AppendLine("Warnings");
+            foreach (var w in proof.Warnings)
+            {
+                sb.AppendLine($"  ! {w}");
+            }
+
+            sb.AppendLine();
+        }
+
+        sb.AppendLine("Caution");
+        foreach (var line in Cautions.Wrapped(78, "  "))
+        {
+            sb.AppendLine(line);
+        }
+
+        return sb.ToString();
+    }
+
+    private static string Pair(Complex z) => z.Imaginary > 0 ? $"{N(z.Real)} ± {N(z.Imaginary)}j" : N(z.Real);
+
+    private static string N(double x, int digits = 5) => TransferFunctionFormatter.Number(x, digits);
+
+    private static string E(double x) => x.ToString("0.0E+0", CultureInfo.InvariantCulture);
+
+    private static string Signed(double x) => (x >= 0 ? "+" : string.Empty) + N(x, 3);
+}

@@ -1,0 +1,55 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using CompAssist.Core.Model;
+
+namespace CompAssist.Core.Synthesis;
+
+/// <summary>
+/// A designed compensator C(s) = K · Π (s − zᵢ)/(s − pᵢ) over its stages, with every gain form labelled.
+/// </summary>
+public sealed class Compensator
+{
+    private Compensator(CompensatorKind kind, double gain, ImmutableArray<CompensatorStage> stages, TransferFunction transferFunction)
+    {
+        Kind = kind;
+        Gain = gain;
+        Stages = stages;
+        TransferFunction = transferFunction;
+    }
+
+    /// <summary>The family of the whole compensator.</summary>
+    public CompensatorKind Kind { get; }
+
+    /// <summary>Factored gain K (multiplies Π(s − z)/Π(s − p)); equals the high-frequency gain here.</summary>
+    public double Gain { get; }
+
+    /// <summary>The stages, in cascade order.</summary>
+    public ImmutableArray<CompensatorStage> Stages { get; }
+
+    /// <summary>The whole compensator as a transfer function.</summary>
+    public TransferFunction TransferFunction { get; }
+
+    /// <summary>DC gain C(0) (infinite with an integrator).</summary>
+    public double DcGain => TransferFunction.DcGain;
+
+    /// <summary>High-frequency gain, the limit of C(s) as s → ∞ for a proper stage set.</summary>
+    public double HighFrequencyGain => TransferFunction.HighFrequencyGain;
+
+    /// <summary>Creates a compensator from stages and a factored gain.</summary>
+    /// <exception cref="ArgumentException">The gain is zero or not finite, or there are no stages.</exception>
+    public static Compensator FromStages(CompensatorKind kind, double gain, IEnumerable<CompensatorStage> stages)
+    {
+        ArgumentNullException.ThrowIfNull(stages);
+        var list = stages.ToImmutableArray();
+        if (list.IsEmpty)
+        {
+            throw new ArgumentException("A compensator needs at least one stage.", nameof(stages));
+        }
+
+        var tf = TransferFunction.FromFactors(
+            gain,
+            list.Select(st => new Complex(st.Zero, 0.0)),
+            list.Select(st => new Complex(st.Pole, 0.0)));
+        return new Compensator(kind, gain, list, tf);
+    }
+}

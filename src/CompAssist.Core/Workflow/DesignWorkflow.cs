@@ -1,0 +1,106 @@
+using CompAssist.Core.Common;
+using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Targets;
+
+namespace CompAssist.Core.Workflow;
+
+/// <summary>
+/// The main job end to end, shared by both front ends: read the loop, choose the target, synthesize,
+/// prove. Every failure comes back as a value; nothing here writes to a console.
+/// </summary>
+public static class DesignWorkflow
+{
+    /// <summary>Compensator families this build can synthesize.</summary>
+    public static IReadOnlyList<string> SupportedTypes { get; } = ["lead"];
+
+    /// <summary>Runs a design.</summary>
+    public static DesignRun Run(DesignInput input)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
+        if (loopResult.FieldError is { } fe)
+        {
+            return DesignRun.Failed(fe);
+        }
+
+        if (loopResult.Problem is { } lp)
+        {
+            return DesignRun.Failed(lp);
+        }
+
+        var loop = loopResult.Loop!;
+        if (!SupportedTypes.Contains(input.CompensatorType))
+        {
+            return DesignRun.Failed(new Problem(
+                $"Compensator type '{input.CompensatorType}' is not available in this version",
+                $"Use one of: {string.Join(", ", SupportedTypes)}."));
+        }
+
+        var optionsProblem = CheckLeadOptions(input.Lead);
+        if (optionsProblem is not null)
+        {
+            return DesignRun.Failed(optionsProblem);
+        }
+
+        var selection = TargetSelector.Select(input.Requirements);
+        if (!selection.IsSuccess)
+        {
+            return DesignRun.Failed(selection.Problem);
+        }
+
+        var design = LeadDesigner.Design(loop, selection.Value.Target, input.Lead);
+        if (!design.IsSuccess)
+        {
+            return DesignRun.Failed(design.Problem);
+        }
+
+        try
+        {
+            var proof = LoopProver.Prove(loop, design.Value.Compensator.TransferFunction, selection.Value.Target);
+            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof));
+        }
+        catch (RootFindingException e)
+        {
+            return DesignRun.Failed(new Problem(
+                "The closed-loop roots could not be verified: " + e.Message,
+                "The loop is numerically ill-conditioned; enter the plant in factored form or reduce its order."));
+        }
+    }
+
+    /// <summary>Parses the loop's expressions and builds it.</summary>
+    public static (Loop? Loop, FieldError? FieldError, Problem? Problem) BuildLoop(string plant, string feedback, FeedbackSign sign, int padeOrder)
+    {
+        ArgumentNullException.ThrowIfNull(plant);
+        ArgumentNullException.ThrowIfNull(feedback);
+        var g = ExpressionParser.ParseProper(plant);
+        if (!g.IsSuccess)
+        {
+            return (null, new FieldError("plant", g.Error), null);
+        }
+
+        var h = ExpressionParser.ParseProper(feedback);
+        if (!h.IsSuccess)
+        {
+            return (null, new FieldError("feedback", h.Error), null);
+        }
+
+        if (padeOrder < 1 || padeOrder > PadeApproximation.MaxOrder)
+        {
+            return (null, null, new Problem($"Padé order {padeOrder} is out of range", $"Use 1 to {PadeApproximation.MaxOrder}."));
+        }
+
+        return (Loop.Create(g.Value, h.Value, sign, padeOrder), null, null);
+    }
+
+    private static Problem? CheckLeadOptions(LeadOptions lead) => lead.Placement switch
+    {
+        LeadPlacement.FixedZero when lead.Zero is null => new Problem("The fixed-zero placement needs a zero location", "Give it with --zero X (a negative number)."),
+        LeadPlacement.FixedPole when lead.Pole is null => new Problem("The fixed-pole placement needs a pole location", "Give it with --pole X (a negative number)."),
+        LeadPlacement.Ratio when lead.Ratio is null => new Problem("The ratio placement needs a pole/zero ratio", "Give it with --ratio R (greater than 1)."),
+        _ => null,
+    };
+}
