@@ -10,10 +10,16 @@ namespace CompAssist.Core.Numerics;
 /// </summary>
 public static class RootFinder
 {
-    /// <summary>Largest accepted relative residual |f(r)|/scale(r); beyond it the roots are refused.</summary>
+    /// <summary>
+    /// A root is accepted when its relative residual |f(r)|/scale(r) is at most this (a small backward error;
+    /// how clustered or repeated roots pass) ...
+    /// </summary>
     public const double ResidualLimit = 1e-9;
 
-    private const int MaxNewtonSteps = 12;
+    /// <summary>... or its last relative Newton correction |f/f′|/|r| is at most this (a small forward error).</summary>
+    public const double StepLimit = 1e-10;
+
+    private const int MaxNewtonSteps = 40;
 
     /// <summary>Roots of an expanded polynomial, polished by Horner evaluation with backward-error scale.</summary>
     /// <exception cref="ArgumentException">The polynomial is zero.</exception>
@@ -59,6 +65,12 @@ public static class RootFinder
                 polished.Add(Complex.Conjugate(root));
             }
 
+            if (!(residual <= ResidualLimit || step <= StepLimit))
+            {
+                throw new RootFindingException(
+                    $"A root near {root} failed its check (relative residual {residual:G3}, relative Newton step {step:G3}); the problem is too ill-conditioned.");
+            }
+
             maxResidual = Math.Max(maxResidual, residual);
             maxStep = Math.Max(maxStep, step);
         }
@@ -66,12 +78,6 @@ public static class RootFinder
         if (polished.Count != function.Degree)
         {
             throw new RootFindingException($"Found {polished.Count} roots for a function of degree {function.Degree}.");
-        }
-
-        if (!(maxResidual <= ResidualLimit))
-        {
-            throw new RootFindingException(
-                $"Roots failed their residual check (relative residual {maxResidual:G3} > {ResidualLimit:G1}); the problem is too ill-conditioned.");
         }
 
         return new RootReport(ConjugateSymmetry.Canonical(polished), maxResidual, maxStep);
@@ -169,8 +175,10 @@ public static class RootFinder
     }
 
     /// <summary>
-    /// Newton polishing of one seed. A step is kept only while it lowers the residual, and a root that
-    /// wanders more than half-way to another seed is taken back (it was converging onto a neighbour).
+    /// Newton polishing of one seed on the accurate evaluation. Iterates while the steps shrink and keeps
+    /// the best point by a rounding-aware measure |f| / (ε·(scale + |f′|·|x|)) (≤ 1 means the value is at rounding
+    /// level: the point is within about an ulp of the root); a root that wanders more than half-way to another seed is taken back (it was converging onto
+    /// a neighbour).
     /// </summary>
     private static (Complex Root, double Residual, double Step) Polish(IRootFunction f, Complex seed, List<Complex> seeds)
     {
@@ -178,10 +186,11 @@ public static class RootFinder
         var x = seed;
         var (v, d, scale) = f.Evaluate(x);
         var best = x;
-        var bestResidual = Relative(v, scale);
-        var lastStep = d != Complex.Zero ? Complex.Abs(v / d) : 0.0;
+        var bestMeasure = Measure(x, v, d, scale);
+        var bestValue = (v, d, scale);
         var neighbour = NearestOtherSeed(seed, seeds);
-        for (var i = 0; i < MaxNewtonSteps && bestResidual > 0.0; i++)
+        var previousStep = double.PositiveInfinity;
+        for (var i = 0; i < MaxNewtonSteps && bestMeasure > 1.0; i++)
         {
             if (d == Complex.Zero)
             {
@@ -189,39 +198,33 @@ public static class RootFinder
             }
 
             var step = v / d;
+            var stepSize = Complex.Abs(step);
+            if (!(stepSize < previousStep) && i > 2)
+            {
+                break;
+            }
+
+            previousStep = stepSize;
             var next = x - step;
             if (isReal)
             {
                 next = new Complex(next.Real, 0.0);
             }
 
-            if (Complex.Abs(next - seed) > 0.5 * neighbour)
-            {
-                break;
-            }
-
-            var (nv, nd, ns) = f.Evaluate(next);
-            var nr = Relative(nv, ns);
-            lastStep = Complex.Abs(step);
-            if (!(nr < bestResidual))
+            if (Complex.Abs(next - seed) > 0.5 * neighbour || !double.IsFinite(next.Real) || !double.IsFinite(next.Imaginary))
             {
                 break;
             }
 
             x = next;
-            v = nv;
-            d = nd;
-            best = next;
-            bestResidual = nr;
-            if (Complex.Abs(step) <= 2e-16 * Complex.Abs(next))
+            (v, d, scale) = f.Evaluate(x);
+            var measure = Measure(x, v, d, scale);
+            if (measure < bestMeasure)
             {
-                break;
+                best = x;
+                bestMeasure = measure;
+                bestValue = (v, d, scale);
             }
-        }
-
-        if (d != Complex.Zero)
-        {
-            lastStep = Complex.Abs(v / d);
         }
 
         if (!isReal && Math.Abs(best.Imaginary) <= ConjugateSymmetry.RealTolerance * Complex.Abs(best))
@@ -230,9 +233,14 @@ public static class RootFinder
             best = new Complex(best.Real, Math.Max(Math.Abs(best.Imaginary), double.Epsilon));
         }
 
+        var (bv, bd, bs) = bestValue;
         var magnitude = Math.Max(Complex.Abs(best), double.Epsilon);
-        return (best, bestResidual, lastStep / magnitude);
+        var relativeStep = bd == Complex.Zero ? (bv == Complex.Zero ? 0.0 : double.PositiveInfinity) : Complex.Abs(bv / bd) / magnitude;
+        return (best, Relative(bv, bs), relativeStep);
     }
+
+    private static double Measure(Complex x, Complex value, Complex derivative, double scale) =>
+        Complex.Abs(value) / ((2.2e-16 * (scale + (Complex.Abs(derivative) * Complex.Abs(x)))) + double.Epsilon);
 
     private static double NearestOtherSeed(Complex seed, List<Complex> seeds)
     {

@@ -48,7 +48,6 @@ public static class LeadDesigner
 
         var uncompensated = PointAnalysis.At(loop, s);
         var deficiency = uncompensated.AngleDeficiencyDegrees;
-        var required = uncompensated.RequiredAngleDegrees;
         if (Math.Abs(deficiency) < OnLocusDegrees)
         {
             return Outcome<Design>.Refused(
@@ -73,7 +72,10 @@ public static class LeadDesigner
 
         var perStage = deficiency / stages;
         var notes = ImmutableArray.CreateBuilder<string>();
-        notes.Add($"Angle of G·H at the target: {F(uncompensated.AngleSumDegrees)}° (zero angles minus pole angles); the {(loop.Sign == FeedbackSign.Negative ? "180°" : "0°")} condition needs an odd multiple of 180°".Replace("an odd multiple of 180°", loop.Sign == FeedbackSign.Negative ? "an odd multiple of 180°" : "a multiple of 360°") + $", so the lead must add {F(deficiency)}°.");
+        var condition = loop.Sign == FeedbackSign.Negative
+            ? "the 180° condition needs an odd multiple of 180°"
+            : "the 0° condition needs a multiple of 360°";
+        notes.Add($"Angle of G·H at the target: {F(uncompensated.AngleSumDegrees)}° (zero angles minus pole angles); {condition}, so the lead must add {F(deficiency)}°.");
         if (stages > 1)
         {
             notes.Add($"{F(deficiency)}° exceeds {F(options.MaxStageAngleDegrees)}° per stage: split into {stages} identical stages of {F(perStage)}° each.");
