@@ -25,7 +25,7 @@ public static class TransferFunctionFormatter
             return "0";
         }
 
-        return x.ToString("G" + digits, CultureInfo.InvariantCulture);
+        return x.ToString("G" + digits, CultureInfo.InvariantCulture).Replace("E", "e", StringComparison.Ordinal);
     }
 
     /// <summary>A complex number as <c>-2 + 3.46j</c>, or a plain real.</summary>
