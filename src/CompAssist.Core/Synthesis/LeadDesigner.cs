@@ -55,6 +55,13 @@ public static class LeadDesigner
                 "No lead is needed: use a proportional gain, or move the target to where the response must improve.");
         }
 
+        var maxTotal = LeadOptions.MaxStages * options.MaxStageAngleDegrees;
+        if (deficiency < 0 && deficiency + 360.0 <= maxTotal)
+        {
+            // The angle condition holds modulo 360°: −x° of lag is also 360° − x° of lead, reachable in stages.
+            deficiency += 360.0;
+        }
+
         if (deficiency < 0)
         {
             return Outcome<Design>.Refused(
@@ -170,7 +177,7 @@ public static class LeadDesigner
                         "Lower the per-stage limit to split the angle into more stages, or choose another placement.");
                 }
 
-                return FromAngles(s, thetaZ, thetaP, $"Bisector placement: zero and pole at ±{F(perStageDegrees / 2)}° about the bisector (largest pole/zero ratio).");
+                return FromAngles(s, thetaZ, thetaP, $"Bisector placement: zero and pole at ±{F(perStageDegrees / 2)}° about the bisector (smallest pole/zero ratio for this angle).");
             }
 
             case LeadPlacement.Cancel:
@@ -330,7 +337,13 @@ public static class LeadDesigner
         Complex candidate;
         if (chosen is { } c)
         {
+            // A real number names a real pole, or the real part of a complex pair (which is then refused).
             var match = poles.Where(p => Complex.Abs(p - c) <= 1e-6 * Math.Max(1.0, Math.Abs(c))).ToList();
+            if (match.Count == 0)
+            {
+                match = poles.Where(p => p.Imaginary > 0 && Math.Abs(p.Real - c) <= 1e-6 * Math.Max(1.0, Math.Abs(c))).ToList();
+            }
+
             if (match.Count == 0)
             {
                 return Outcome<PlacedStage>.Refused(

@@ -8,7 +8,8 @@ public enum LeadPlacement
 
     /// <summary>
     /// Zero and pole symmetric about the bisector of the angle between the horizontal through the target and
-    /// the line to the origin; this gives the largest pole/zero ratio (smallest high-frequency gain growth).
+    /// the line to the origin; this gives the smallest pole/zero ratio for the angle (the least high-frequency
+    /// gain growth; common practice).
     /// </summary>
     Bisector,
 
