@@ -28,6 +28,12 @@ internal static class DesignCommand
     private static int Execute(ParseResult parse, DesignSettings s, TextWriter stdout, TextWriter stderr)
     {
         var casePath = parse.GetValue(s.Case);
+        if (casePath is not null && casePath.StartsWith('-'))
+        {
+            stderr.WriteLine($"error: unknown option '{casePath}'. Run 'compassist design --help' for the options.");
+            return CliApplication.UsageError;
+        }
+
         var baseCase = new CaseFile();
         if (casePath is not null)
         {

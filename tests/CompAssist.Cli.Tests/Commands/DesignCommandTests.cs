@@ -1,0 +1,151 @@
+using System.Text.Json;
+using CompAssist.Cli.Tests.Support;
+
+namespace CompAssist.Cli.Tests.Commands;
+
+public class DesignCommandTests
+{
+    private static readonly string Ogata = "4/(s(s+2))";
+
+    [Fact]
+    public void Design_Text_ShowsCompensatorProofAndCaution()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", Ogata, "--zeta", "0.5", "--wn", "4");
+        Assert.Equal(0, code);
+        Assert.Equal(string.Empty, error);
+        Assert.Contains("C(s) = 4.73205 (s + 2.9282) / (s + 5.4641)", output, StringComparison.Ordinal);
+        Assert.Contains("target confirmed as a closed-loop root", output, StringComparison.Ordinal);
+        Assert.Contains("-2 ± 3.4641j", output, StringComparison.Ordinal);
+        Assert.Contains("\nCaution\n", output, StringComparison.Ordinal);
+        Assert.Contains("ISO 13849", output, StringComparison.Ordinal);
+        Assert.Contains("second-order predictions (not measurements)", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_Json_HasMachineInterfaceFields()
+    {
+        var (code, output, _) = CliRunner.Run("design", "--plant", Ogata, "--target=-2,3.4641016151377544", "--placement", "cancel", "--json");
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        var root = doc.RootElement;
+        Assert.Equal(-2.0, root.GetProperty("target").GetProperty("re").GetDouble());
+        Assert.Equal(3.4641016151377544, root.GetProperty("target").GetProperty("im").GetDouble());
+        var c = root.GetProperty("compensator");
+        Assert.Equal("lead", c.GetProperty("type").GetString());
+        Assert.Equal(4.0, c.GetProperty("gain").GetDouble(), 12);
+        Assert.Equal(-2.0, c.GetProperty("zeros")[0].GetProperty("re").GetDouble());
+        Assert.Equal(-4.0, c.GetProperty("poles")[0].GetProperty("re").GetDouble(), 12);
+        var num = c.GetProperty("numerator").EnumerateArray().Select(e => e.GetDouble()).ToArray();
+        var den = c.GetProperty("denominator").EnumerateArray().Select(e => e.GetDouble()).ToArray();
+        Assert.Equal(2, num.Length);
+        Assert.Equal(4.0, num[0], 12);
+        Assert.Equal(8.0, num[1], 12);
+        Assert.Equal(1.0, den[0]);
+        Assert.Equal(4.0, den[1], 12);
+        var poles = root.GetProperty("closedLoop").GetProperty("poles").EnumerateArray().ToList();
+        Assert.Equal(3, poles.Count);
+        Assert.All(poles, p => Assert.True(p.GetProperty("re").GetDouble() < 0));
+        Assert.True(root.GetProperty("closedLoop").GetProperty("targetConfirmed").GetBoolean());
+        Assert.Contains("not a safety function", root.GetProperty("caution").GetString(), StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("beneath")]
+    [InlineData("bisector")]
+    [InlineData("cancel")]
+    [InlineData("fixed-zero", "--zero", "-1.5")]
+    [InlineData("fixed-pole", "--pole", "-12")]
+    [InlineData("ratio", "--ratio", "6")]
+    public void Design_EveryPlacement_ExitsZeroWithConfirmedTarget(string placement, params string[] extra)
+    {
+        string[] args = ["design", "--plant", "10/(s(s+2)(s+10))", "--target=-1.5,2.5", "--placement", placement, "--json", .. extra];
+        var (code, output, error) = CliRunner.Run(args);
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        Assert.True(doc.RootElement.GetProperty("closedLoop").GetProperty("targetConfirmed").GetBoolean());
+        Assert.Equal(placement, doc.RootElement.GetProperty("compensator").GetProperty("placement").GetString());
+    }
+
+    [Fact]
+    public void Design_BadExpression_ShowsCaretOnStderrAndNoStdout()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "4/(s(s+2", "--zeta", "0.5", "--wn", "4", "--json");
+        Assert.Equal(2, code);
+        Assert.Equal(string.Empty, output);
+        var lines = error.Split('\n');
+        Assert.Equal("error: cannot read the plant expression:", lines[0]);
+        Assert.Equal("  4/(s(s+2", lines[1]);
+        Assert.Equal("      ^", lines[2]);
+        Assert.StartsWith("This '(' is never closed (column 5).", lines[3], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_Refused_ExitsThreeWithReasonAndHint()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", Ogata, "--target=-1,3", "--json");
+        Assert.Equal(3, code);
+        Assert.Equal(string.Empty, output);
+        Assert.StartsWith("error: The target is already on the uncompensated locus", error, StringComparison.Ordinal);
+        Assert.Contains("hint: No lead is needed", error, StringComparison.Ordinal);
+    }
+
+    public static TheoryData<string[], int, string> BadCommandLines() => new()
+    {
+        { ["design", "--zeta", "0.5", "--wn", "4"], 2, "error: no plant given" },
+        { ["design", "--plant", "1/s^2", "--target", "abc"], 2, "error: --target 'abc' is not a point" },
+        { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "middle"], 2, "error: --placement 'middle' is not a placement" },
+        { ["design", "--plant", "1/s^2", "--overshoot", "10", "--settling", "2", "--band", "3"], 2, "error: --band 3 is not supported" },
+        { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--type", "pid"], 3, "error: Compensator type 'pid' is not available" },
+        { ["design", "--plant", "1/s^2", "--zeta", "0.5"], 3, "error: ζ and ωn must be given together" },
+        { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "fixed-zero"], 3, "error: The fixed-zero placement needs a zero location" },
+        { ["design", "/nonexistent/case.toml"], 2, "error: /nonexistent/case.toml: Cannot read the case file" },
+        { ["design", "--plant", "1/s^2", "--zeta", "zero"], 1, "zero" },
+        { ["design", "--no-such-flag"], 1, "--no-such-flag" },
+    };
+
+    [Theory]
+    [MemberData(nameof(BadCommandLines))]
+    public void Design_BadCommandLine_NonZeroExitMessageOnStderrNoStdoutJson(string[] args, int expectedCode, string expectedError)
+    {
+        var (code, output, error) = CliRunner.Run([.. args, "--json"]);
+        Assert.Equal(expectedCode, code);
+        Assert.Contains(expectedError, error, StringComparison.Ordinal);
+        Assert.DoesNotContain("{", output, StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_FlagsOverrideCaseFile()
+    {
+        var path = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
+        var (code, output, _) = CliRunner.Run("design", path, "--target=-4,5", "--json");
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Equal(-4.0, doc.RootElement.GetProperty("target").GetProperty("re").GetDouble());
+        Assert.Equal("bisector", doc.RootElement.GetProperty("compensator").GetProperty("placement").GetString());
+    }
+
+    public static TheoryData<string> DemoCases()
+    {
+        var data = new TheoryData<string>();
+        foreach (var file in Directory.GetFiles(Path.Combine(CliRunner.RepositoryRoot(), "cases"), "*.toml").Order())
+        {
+            data.Add(Path.GetFileName(file));
+        }
+
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(DemoCases))]
+    public void Design_DemoCase_IsDesignedAndProved(string file)
+    {
+        var path = Path.Combine(CliRunner.RepositoryRoot(), "cases", file);
+        var (code, output, error) = CliRunner.Run("design", path, "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var closed = doc.RootElement.GetProperty("closedLoop");
+        Assert.True(closed.GetProperty("targetConfirmed").GetBoolean());
+        Assert.True(closed.GetProperty("stable").GetBoolean());
+    }
+}
