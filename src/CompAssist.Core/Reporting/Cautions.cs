@@ -14,28 +14,5 @@ public static class Cautions
         "where the equipment is used (for example the ISO 12100 / ISO 13849 / IEC 62061 / IEC 61508 families).";
 
     /// <summary>The caution wrapped to a width, each line prefixed.</summary>
-    public static IEnumerable<string> Wrapped(int width, string prefix = "")
-    {
-        var line = new System.Text.StringBuilder();
-        foreach (var word in Text.Split(' '))
-        {
-            if (line.Length > 0 && prefix.Length + line.Length + 1 + word.Length > width)
-            {
-                yield return prefix + line;
-                line.Clear();
-            }
-
-            if (line.Length > 0)
-            {
-                line.Append(' ');
-            }
-
-            line.Append(word);
-        }
-
-        if (line.Length > 0)
-        {
-            yield return prefix + line;
-        }
-    }
+    public static IEnumerable<string> Wrapped(int width, string prefix = "") => TextWrap.Lines(Text, width, prefix, prefix);
 }

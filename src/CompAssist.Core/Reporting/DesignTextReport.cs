@@ -29,11 +29,12 @@ public static class DesignTextReport
         sb.AppendLine();
 
         sb.AppendLine("Target (dominant closed-loop pole)");
-        sb.AppendLine($"  s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j   σ = {N(target.Sigma)} 1/s   ωd = {N(target.DampedFrequency)} rad/s   ζ = {N(target.Zeta, 4)}   ωn = {N(target.NaturalFrequency)} rad/s");
+        sb.AppendLine($"  s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j");
+        sb.AppendLine($"  σ = {N(target.Sigma)} 1/s   ωd = {N(target.DampedFrequency)} rad/s   ζ = {N(target.Zeta, 4)}   ωn = {N(target.NaturalFrequency)} rad/s");
         sb.AppendLine($"  chosen as: {report.Selection.Source}");
         foreach (var c in report.Selection.Constraints)
         {
-            sb.AppendLine($"  region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}  {(c.Satisfied ? "inside" : "OUTSIDE")}");
+            AppendWrapped(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
         }
 
         var p = target.Predict();
@@ -44,24 +45,24 @@ public static class DesignTextReport
         sb.AppendLine($"Synthesis (lead, placement: {PlacementNames.NameOf(design.Placement)})");
         foreach (var note in design.Notes)
         {
-            sb.AppendLine($"  {note}");
+            AppendWrapped(sb, note, "  ", "    ");
         }
 
         var i = 1;
         foreach (var st in design.Compensator.Stages)
         {
-            sb.AppendLine($"  stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*");
+            AppendWrapped(sb, $"stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*", "  ", "    ");
         }
 
         var c0 = design.Compensator;
         sb.AppendLine($"  C(s) = {c0.TransferFunction}");
-        sb.AppendLine($"  gains: factored K = {N(c0.Gain)} (multiplies Π(s−z)/Π(s−p); also the high-frequency gain)");
-        sb.AppendLine($"         DC gain C(0) = {N(c0.DcGain)}");
+        sb.AppendLine($"  gains: factored K = {N(c0.Gain)}  (multiplies Π(s−z)/Π(s−p); equals the");
+        sb.AppendLine($"         high-frequency gain)    DC gain C(0) = {N(c0.DcGain)}");
         sb.AppendLine($"  magnitude condition at s*: |C·G·H| = 1 with K = {N(c0.Gain)}");
         sb.AppendLine();
 
         sb.AppendLine("Proof (closed loop, all roots by root finding)");
-        sb.AppendLine($"  characteristic polynomial (descending powers): {string.Join("  ", proof.CharacteristicDescending.Select(x => N(x)))}");
+        AppendWrapped(sb, $"characteristic polynomial (descending powers): {string.Join("  ", proof.CharacteristicDescending.Select(x => N(x)))}", "  ", "    ");
         sb.AppendLine("  closed-loop poles:");
         foreach (var r in proof.Roots.Where(r => r.Value.Imaginary >= 0))
         {
@@ -72,14 +73,14 @@ public static class DesignTextReport
                 RootRole.Cancelled => "on a closed-loop zero",
                 _ => string.Empty,
             };
-            sb.AppendLine($"    {pair,-28} ζ {N(r.Zeta, 3),-7} ωn {N(r.NaturalFrequency, 4),-9} {role}");
+            sb.AppendLine($"    {pair,-28} ζ {N(r.Zeta, 3),-7} ωn {N(r.NaturalFrequency, 4),-9} {role}".TrimEnd());
         }
 
         var residual = proof.UsesPade ? proof.TargetResidualExactDelay : proof.TargetResidual;
-        sb.AppendLine(proof.TargetConfirmed
-            ? $"  target confirmed as a closed-loop root: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away"
-            : $"  TARGET NOT CONFIRMED: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away");
-        sb.AppendLine($"  roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}");
+        AppendWrapped(sb, proof.TargetConfirmed
+            ? $"target confirmed as a closed-loop root: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away"
+            : $"TARGET NOT CONFIRMED: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away", "  ", "    ");
+        AppendWrapped(sb, $"roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}", "  ", "    ");
         sb.AppendLine($"  dominance ratio (slowest other pole's σ / target σ): {(double.IsPositiveInfinity(proof.DominanceRatio) ? "no other poles" : N(proof.DominanceRatio, 3))}");
         var zeros = proof.ClosedLoopZeros.Where(z => z.Imaginary >= 0).Select(Pair).ToList();
         sb.AppendLine($"  closed-loop zeros: {(zeros.Count == 0 ? "none" : string.Join(", ", zeros))}");
@@ -91,7 +92,7 @@ public static class DesignTextReport
             sb.AppendLine("Warnings");
             foreach (var w in proof.Warnings)
             {
-                sb.AppendLine($"  ! {w}");
+                AppendWrapped(sb, w, "  ! ", "    ");
             }
 
             sb.AppendLine();
@@ -104,6 +105,14 @@ public static class DesignTextReport
         }
 
         return sb.ToString();
+    }
+
+    private static void AppendWrapped(StringBuilder sb, string text, string first, string rest)
+    {
+        foreach (var line in TextWrap.Lines(text, 79, first, rest))
+        {
+            sb.AppendLine(line);
+        }
     }
 
     private static string Pair(Complex z) => z.Imaginary > 0 ? $"{N(z.Real)} ± {N(z.Imaginary)}j" : N(z.Real);
