@@ -38,8 +38,9 @@ public static class DesignTextReport
         }
 
         var p = target.Predict();
-        sb.AppendLine($"  second-order predictions (not measurements): overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s,");
-        sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ), rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
+        sb.AppendLine("  second-order predictions (not measurements):");
+        sb.AppendLine($"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
+        sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ)");
         sb.AppendLine();
 
         sb.AppendLine($"Synthesis (lead, placement: {PlacementNames.NameOf(design.Placement)})");

@@ -18,7 +18,7 @@ public class DesignCommandTests
         Assert.Contains("-2 ± 3.4641j", output, StringComparison.Ordinal);
         Assert.Contains("\nCaution\n", output, StringComparison.Ordinal);
         Assert.Contains("ISO 13849", output, StringComparison.Ordinal);
-        Assert.Contains("second-order predictions (not measurements)", output, StringComparison.Ordinal);
+        Assert.Contains("second-order predictions (not measurements):", output, StringComparison.Ordinal);
     }
 
     [Fact]
