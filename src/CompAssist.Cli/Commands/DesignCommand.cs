@@ -48,11 +48,6 @@ internal static class DesignCommand
         }
 
         var plant = parse.GetValue(s.Plant) ?? baseCase.Plant;
-        if (plant is null)
-        {
-            stderr.WriteLine("error: no plant given. Pass --plant \"EXPR\" or a case file with [loop] plant = \"...\".");
-            return CliApplication.InputError;
-        }
 
         var requirements = OverlayRequirements(parse, s, baseCase.Requirements, stderr, out var bad);
         if (bad)
@@ -81,7 +76,7 @@ internal static class DesignCommand
             MaxStageAngleDegrees = parse.GetValue(s.MaxStageAngle) ?? lead.MaxStageAngleDegrees,
         };
 
-        var input = new DesignInput
+        var input = baseCase with
         {
             Plant = plant,
             Feedback = parse.GetValue(s.Feedback) ?? baseCase.Feedback,
@@ -102,6 +97,12 @@ internal static class DesignCommand
 
         if (run.Problem is { } problem)
         {
+            if (plant is null)
+            {
+                stderr.WriteLine($"error: {problem.Message}. {problem.Hint}");
+                return CliApplication.InputError;
+            }
+
             stderr.WriteLine($"error: {problem.Message}.");
             stderr.WriteLine($"hint: {problem.Hint}");
             return CliApplication.Refused;

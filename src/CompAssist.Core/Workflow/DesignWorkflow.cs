@@ -1,3 +1,4 @@
+using CompAssist.Core.Cases;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
 using CompAssist.Core.Numerics;
@@ -17,10 +18,15 @@ public static class DesignWorkflow
     /// <summary>Compensator families this build can synthesize.</summary>
     public static IReadOnlyList<string> SupportedTypes { get; } = ["lead"];
 
-    /// <summary>Runs a design.</summary>
-    public static DesignRun Run(DesignInput input)
+    /// <summary>Runs the design a case describes.</summary>
+    public static DesignRun Run(CaseFile input)
     {
         ArgumentNullException.ThrowIfNull(input);
+        if (input.Plant is null)
+        {
+            return DesignRun.Failed(new Problem("No plant is given", "Give the plant G(s), e.g. --plant \"10/(s(s+2))\" or [loop] plant = \"...\" in the case file."));
+        }
+
         var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
         if (loopResult.FieldError is { } fe)
         {

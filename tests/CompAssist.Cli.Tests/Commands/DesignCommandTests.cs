@@ -91,7 +91,7 @@ public class DesignCommandTests
 
     public static TheoryData<string[], int, string> BadCommandLines() => new()
     {
-        { ["design", "--zeta", "0.5", "--wn", "4"], 2, "error: no plant given" },
+        { ["design", "--zeta", "0.5", "--wn", "4"], 2, "error: No plant is given" },
         { ["design", "--plant", "1/s^2", "--target", "abc"], 2, "error: --target 'abc' is not a point" },
         { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "middle"], 2, "error: --placement 'middle' is not a placement" },
         { ["design", "--plant", "1/s^2", "--overshoot", "10", "--settling", "2", "--band", "3"], 2, "error: --band 3 is not supported" },

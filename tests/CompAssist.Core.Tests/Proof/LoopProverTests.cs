@@ -9,15 +9,15 @@ namespace CompAssist.Core.Tests.Proof;
 
 public class LoopProverTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
 
     [Fact]
     public void Prove_OgataLead_HasExpectedCharacteristicPolynomialAndRoots()
     {
         // 4/(s(s+2)) with C = 4 (s+2)/(s+4): 1 + 16/(s(s+4)) → closed-loop s² + 4s + 16 and the cancelled s + 2,
         // so the characteristic polynomial is (s + 2)(s² + 4s + 16) = s³ + 6s² + 24s + 32 (hand expansion).
-        var loop = Loop.Create(Tf("4/(s(s+2))"));
-        var proof = LoopProver.Prove(loop, Tf("4(s+2)/(s+4)"), TargetPole.At(new Complex(-2, 2 * Math.Sqrt(3))));
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var proof = LoopProver.Prove(loop, FromText("4(s+2)/(s+4)"), TargetPole.At(new Complex(-2, 2 * Math.Sqrt(3))));
         double[] expected = [1.0, 6.0, 24.0, 32.0];
         Assert.Equal(expected.Length, proof.CharacteristicDescending.Length);
         for (var k = 0; k < expected.Length; k++)
@@ -36,8 +36,8 @@ public class LoopProverTests
     [Fact]
     public void Prove_WrongTarget_IsNotConfirmed()
     {
-        var loop = Loop.Create(Tf("4/(s(s+2))"));
-        var proof = LoopProver.Prove(loop, Tf("4(s+2)/(s+4)"), TargetPole.At(new Complex(-2, 3)));
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var proof = LoopProver.Prove(loop, FromText("4(s+2)/(s+4)"), TargetPole.At(new Complex(-2, 3)));
         Assert.False(proof.TargetConfirmed);
         Assert.Contains(proof.Warnings, w => w.StartsWith("The target is NOT confirmed", StringComparison.Ordinal));
     }
@@ -46,8 +46,8 @@ public class LoopProverTests
     public void Prove_UnstableLoop_IsFlagged()
     {
         // K/(s(s+1)(s+2)) is unstable for K > 6 (Routh, common practice).
-        var loop = Loop.Create(Tf("1/(s(s+1)(s+2))"));
-        var proof = LoopProver.Prove(loop, Tf("10"), TargetPole.At(new Complex(-1, 1)));
+        var loop = Loop.Create(FromText("1/(s(s+1)(s+2))"));
+        var proof = LoopProver.Prove(loop, FromText("10"), TargetPole.At(new Complex(-1, 1)));
         Assert.False(proof.Stable);
         Assert.StartsWith("UNSTABLE", proof.Warnings[0], StringComparison.Ordinal);
     }
@@ -56,8 +56,8 @@ public class LoopProverTests
     public void Prove_RouthBoundary_RootsOnImaginaryAxisAtSqrt2()
     {
         // K = 6 puts closed-loop roots at ±j√2 for 1/(s(s+1)(s+2)) (Routh, common practice).
-        var loop = Loop.Create(Tf("1/(s(s+1)(s+2))"));
-        var proof = LoopProver.Prove(loop, Tf("6"), TargetPole.At(new Complex(0, Math.Sqrt(2))));
+        var loop = Loop.Create(FromText("1/(s(s+1)(s+2))"));
+        var proof = LoopProver.Prove(loop, FromText("6"), TargetPole.At(new Complex(0, Math.Sqrt(2))));
         Tolerance.SameRoots([new Complex(0, Math.Sqrt(2)), new Complex(0, -Math.Sqrt(2)), new Complex(-3, 0)], proof.Roots.Select(r => r.Value).ToList(), 1e-12);
     }
 
@@ -65,16 +65,16 @@ public class LoopProverTests
     public void Prove_PositiveFeedback_UsesMinusSign()
     {
         // 1 − K/(s+1) = 0 → s = K − 1.
-        var loop = Loop.Create(Tf("1/(s+1)"), sign: FeedbackSign.Positive);
-        var proof = LoopProver.Prove(loop, Tf("0.25"), TargetPole.At(new Complex(-0.75, 0)));
+        var loop = Loop.Create(FromText("1/(s+1)"), sign: FeedbackSign.Positive);
+        var proof = LoopProver.Prove(loop, FromText("0.25"), TargetPole.At(new Complex(-0.75, 0)));
         Tolerance.Close(new Complex(-0.75, 0), Assert.Single(proof.Roots).Value, 1e-15);
     }
 
     [Fact]
     public void Prove_NonUnitySensor_PolesOfSensorAreClosedLoopZeros()
     {
-        var loop = Loop.Create(Tf("1/(s(s+1))"), Tf("10/(s+10)"));
-        var proof = LoopProver.Prove(loop, Tf("2"), TargetPole.At(new Complex(-0.5, 1)));
+        var loop = Loop.Create(FromText("1/(s(s+1))"), FromText("10/(s+10)"));
+        var proof = LoopProver.Prove(loop, FromText("2"), TargetPole.At(new Complex(-0.5, 1)));
         Assert.Contains(new Complex(-10, 0), proof.ClosedLoopZeros);
         Assert.Equal(3, proof.Roots.Length);
     }
@@ -82,8 +82,8 @@ public class LoopProverTests
     [Fact]
     public void Prove_Delay_UsesPadeAndExactResidual()
     {
-        var loop = Loop.Create(Tf("exp(-0.1s)/(s(s+1))"));
-        var proof = LoopProver.Prove(loop, Tf("1"), TargetPole.At(new Complex(-0.5, 0.8)));
+        var loop = Loop.Create(FromText("exp(-0.1s)/(s(s+1))"));
+        var proof = LoopProver.Prove(loop, FromText("1"), TargetPole.At(new Complex(-0.5, 0.8)));
         Assert.True(proof.UsesPade);
         Assert.Equal(2 + 3, proof.Roots.Length);
         Assert.Contains(proof.Warnings, w => w.Contains("Padé", StringComparison.Ordinal));
