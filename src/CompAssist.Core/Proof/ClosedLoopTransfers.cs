@@ -1,0 +1,40 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using CompAssist.Core.Model;
+
+namespace CompAssist.Core.Proof;
+
+/// <summary>
+/// The closed-loop transfer functions of a compensated loop for a reference step, in factored form with
+/// the closed-loop poles that root finding produced: output T = C·G/(1 ± C·G·H) and actuator command
+/// U = C/(1 ± C·G·H). Delays are by Padé.
+/// </summary>
+/// <param name="Output">Reference to output y.</param>
+/// <param name="Effort">Reference to actuator command u; null when C is improper (u has an impulse).</param>
+public sealed record ClosedLoopTransfers(TransferFunction Output, TransferFunction? Effort)
+{
+    /// <summary>Builds both from the loop, the compensator and the closed-loop poles.</summary>
+    public static ClosedLoopTransfers Of(Loop loop, TransferFunction compensator, ImmutableArray<Complex> closedLoopPoles)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        ArgumentNullException.ThrowIfNull(compensator);
+        var g = loop.Rational(loop.Plant);
+        var h = loop.Rational(loop.Feedback);
+        var characteristic = loop.Characteristic(compensator);
+        var lead = characteristic.ExpandForSeeds().Leading;
+        var output = TransferFunction.FromFactors(
+            compensator.Gain * g.Gain / lead,
+            compensator.Zeros.AddRange(g.Zeros).AddRange(h.Poles),
+            closedLoopPoles);
+        TransferFunction? effort = null;
+        if (compensator.IsProper)
+        {
+            effort = TransferFunction.FromFactors(
+                compensator.Gain / lead,
+                compensator.Zeros.AddRange(g.Poles).AddRange(h.Poles),
+                closedLoopPoles);
+        }
+
+        return new ClosedLoopTransfers(output, effort);
+    }
+}

@@ -1,0 +1,41 @@
+using System.Collections.Immutable;
+using CompAssist.Core.Simulation;
+
+namespace CompAssist.Core.Proof;
+
+/// <summary>What the compensated loop actually does: the simulated step, errors, margins and effort.</summary>
+public sealed record LoopCheckReport
+{
+    /// <summary>True when every closed-loop pole has a negative real part.</summary>
+    public required bool Stable { get; init; }
+
+    /// <summary>The output step response y(t).</summary>
+    public required SampledResponse Output { get; init; }
+
+    /// <summary>The actuator command u(t) for a unit step (null when the compensator is improper).</summary>
+    public required SampledResponse? Effort { get; init; }
+
+    /// <summary>Measured step figures (final value from the closed-loop DC gain when stable).</summary>
+    public required StepMetrics Step { get; init; }
+
+    /// <summary>Steady-state error r − y for a unit step (stable loops).</summary>
+    public required double StepError { get; init; }
+
+    /// <summary>Steady-state error r − y for a unit ramp (infinite when the step error is not zero).</summary>
+    public required double RampError { get; init; }
+
+    /// <summary>System type and error constants of ±C·G·H.</summary>
+    public required ErrorConstants ErrorConstants { get; init; }
+
+    /// <summary>Margins; null when the closed loop is unstable (they are not claimed then).</summary>
+    public required StabilityMargins? Margins { get; init; }
+
+    /// <summary>Actuator figures.</summary>
+    public required EffortFigures EffortFigures { get; init; }
+
+    /// <summary>Measured figures beside requirements and predictions.</summary>
+    public required ImmutableArray<RequirementCheck> Checks { get; init; }
+
+    /// <summary>Plain warnings for the engineer.</summary>
+    public required ImmutableArray<string> Warnings { get; init; }
+}

@@ -1,0 +1,191 @@
+using System.Numerics;
+using CompAssist.Core.Common;
+using CompAssist.Core.Model;
+
+namespace CompAssist.Core.Proof;
+
+/// <summary>
+/// Margins on a log-spaced frequency grid evaluated in factored form (log-magnitude and continuous phase
+/// as sums over the factors), with every gain and phase crossover bracketed and refined by bisection.
+/// </summary>
+public static class MarginAnalyzer
+{
+    /// <summary>Number of grid points.</summary>
+    public const int GridPoints = 1600;
+
+    /// <summary>Computes the margins of the loop with the compensator (sign folded in, delay exact).</summary>
+    public static StabilityMargins Analyze(Loop loop, TransferFunction compensator)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        var open = loop.OpenLoop(compensator).Scaled(loop.SignFactor);
+        var (lo, hi) = Range(open);
+        var logLo = Math.Log(lo);
+        var step = (Math.Log(hi) - logLo) / (GridPoints - 1);
+        var w = new double[GridPoints];
+        var mag = new double[GridPoints];
+        var phase = new double[GridPoints];
+        for (var i = 0; i < GridPoints; i++)
+        {
+            w[i] = Math.Exp(logLo + (i * step));
+            (mag[i], phase[i]) = LogMagnitudeAndPhase(open, w[i]);
+        }
+
+        double pm = double.PositiveInfinity, wc = double.NaN, dm = double.PositiveInfinity;
+        double gm = double.PositiveInfinity, wp = double.NaN, gmDown = double.PositiveInfinity;
+        for (var i = 1; i < GridPoints; i++)
+        {
+            if (Math.Sign(mag[i]) != Math.Sign(mag[i - 1]) && mag[i] != mag[i - 1])
+            {
+                var x = Bisect(u => LogMagnitudeAndPhase(open, u).LogMagnitude, w[i - 1], w[i]);
+                var margin = Angles.WrapDegrees(Angles.ToDegrees(LogMagnitudeAndPhase(open, x).Phase) + 180.0);
+                if (margin < pm)
+                {
+                    pm = margin;
+                    wc = x;
+                }
+
+                if (margin > 0)
+                {
+                    dm = Math.Min(dm, Angles.ToRadians(margin) / x);
+                }
+                else
+                {
+                    dm = 0.0;
+                }
+            }
+
+            var a = WrappedFromMinus180(phase[i - 1]);
+            var b = WrappedFromMinus180(phase[i]);
+            if (Math.Sign(a) != Math.Sign(b) && Math.Abs(a - b) < Math.PI)
+            {
+                var x = Bisect(u => WrappedFromMinus180(LogMagnitudeAndPhase(open, u).Phase), w[i - 1], w[i]);
+                var logMag = LogMagnitudeAndPhase(open, x).LogMagnitude;
+                var db = -20.0 * logMag / Math.Log(10);
+                if (db > 0 && db < gm)
+                {
+                    gm = db;
+                    wp = x;
+                }
+                else if (db <= 0)
+                {
+                    gmDown = Math.Min(gmDown, -db);
+                }
+            }
+        }
+
+        var (ms, wms) = SensitivityPeak(open, w);
+        return new StabilityMargins(gm, wp, gmDown, pm, wc, dm, ms, wms);
+    }
+
+    private static (double Lo, double Hi) Range(TransferFunction open)
+    {
+        var corners = open.Zeros.Concat(open.Poles).Select(r => r.Magnitude).Where(m => m > 0).ToList();
+        var lo = corners.Count > 0 ? corners.Min() / 1000.0 : 1e-3;
+        var hi = corners.Count > 0 ? corners.Max() * 1000.0 : 1e3;
+        if (open.Delay > 0)
+        {
+            hi = Math.Max(hi, 100.0 / open.Delay);
+        }
+
+        return (Math.Min(lo, 1e-3), Math.Max(hi, 1e3));
+    }
+
+    /// <summary>ln|L(jω)| and a continuous phase (radians), summed over the factors.</summary>
+    internal static (double LogMagnitude, double Phase) LogMagnitudeAndPhase(TransferFunction open, double omega)
+    {
+        var logMag = Math.Log(Math.Abs(open.Gain));
+        var phase = open.Gain < 0 ? Math.PI : 0.0;
+        foreach (var z in open.Zeros)
+        {
+            logMag += Math.Log(Complex.Abs(new Complex(-z.Real, omega - z.Imaginary)));
+            phase += FactorPhase(z, omega);
+        }
+
+        foreach (var p in open.Poles)
+        {
+            logMag -= Math.Log(Complex.Abs(new Complex(-p.Real, omega - p.Imaginary)));
+            phase -= FactorPhase(p, omega);
+        }
+
+        return (logMag, phase - (omega * open.Delay));
+    }
+
+    /// <summary>∠(jω − r), continuous in ω (for right-half-plane r as π + ∠(r − jω), which has no branch cut there).</summary>
+    private static double FactorPhase(Complex r, double omega) =>
+        r.Real > 0 ? Math.PI + Math.Atan2(r.Imaginary - omega, r.Real) : Math.Atan2(omega - r.Imaginary, -r.Real);
+
+    /// <summary>The phase measured from −180°, wrapped to (−π, π].</summary>
+    private static double WrappedFromMinus180(double phase)
+    {
+        var x = Math.IEEERemainder(phase + Math.PI, 2 * Math.PI);
+        return x <= -Math.PI ? x + (2 * Math.PI) : x;
+    }
+
+    private static (double Peak, double Frequency) SensitivityPeak(TransferFunction open, double[] w)
+    {
+        double Sensitivity(double omega)
+        {
+            var l = open.Evaluate(new Complex(0, omega));
+            return 1.0 / Complex.Abs(1.0 + l);
+        }
+
+        var best = 0;
+        var bestValue = Sensitivity(w[0]);
+        for (var i = 1; i < w.Length; i++)
+        {
+            var v = Sensitivity(w[i]);
+            if (v > bestValue)
+            {
+                bestValue = v;
+                best = i;
+            }
+        }
+
+        // Golden-section refinement between the neighbours of the best grid point.
+        double a = w[Math.Max(best - 1, 0)], b = w[Math.Min(best + 1, w.Length - 1)];
+        const double g = 0.6180339887498949;
+        for (var k = 0; k < 60 && b - a > 1e-12 * b; k++)
+        {
+            var c = b - (g * (b - a));
+            var d = a + (g * (b - a));
+            if (Sensitivity(c) > Sensitivity(d))
+            {
+                b = d;
+            }
+            else
+            {
+                a = c;
+            }
+        }
+
+        var x = 0.5 * (a + b);
+        var refined = Sensitivity(x);
+        return refined > bestValue ? (refined, x) : (bestValue, w[best]);
+    }
+
+    private static double Bisect(Func<double, double> f, double a, double b)
+    {
+        var fa = f(a);
+        for (var i = 0; i < 100; i++)
+        {
+            var m = Math.Sqrt(a * b);
+            var fm = f(m);
+            if (fm == 0 || b - a <= 1e-14 * m)
+            {
+                return m;
+            }
+
+            if (Math.Sign(fm) == Math.Sign(fa))
+            {
+                a = m;
+                fa = fm;
+            }
+            else
+            {
+                b = m;
+            }
+        }
+
+        return Math.Sqrt(a * b);
+    }
+}
