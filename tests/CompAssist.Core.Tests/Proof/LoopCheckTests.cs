@@ -1,0 +1,73 @@
+using System.Numerics;
+using CompAssist.Core.Model;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Targets;
+using CompAssist.Core.Tests.Support;
+
+namespace CompAssist.Core.Tests.Proof;
+
+public class LoopCheckTests
+{
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+
+    [Fact]
+    public void Run_CancelledLead_IsExactSecondOrder()
+    {
+        // 4/(s(s+2)) with C = 4(s+2)/(s+4): T = 16/(s² + 4s + 16), ζ = 0.5, ωn = 4 exactly.
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var target = TargetPole.FromDamping(0.5, 4);
+        var report = LoopCheck.Run(loop, FromText("4(s+2)/(s+4)"), new CheckOptions { Intervals = 20000 }, new Requirements { MaxOvershootPercent = 20 }, target);
+        Assert.True(report.Stable);
+        Tolerance.Close(SecondOrder.OvershootPercent(0.5), report.Step.OvershootPercent, 1e-5);
+        Tolerance.Close(Math.PI / (2 * Math.Sqrt(3)), report.Step.PeakTime, 0, report.Step.SampleTime);
+        Tolerance.Close(1.0, report.Step.FinalValue, 1e-12);
+        Tolerance.Close(0.0, report.StepError, 0, 1e-12);
+        Assert.Equal(1, report.ErrorConstants.SystemType);
+        Tolerance.Close(4.0, report.ErrorConstants.Kv, 1e-12, what: "Kv = lim s·16/(s(s+4))");
+        Tolerance.Close(0.25, report.RampError, 1e-9, what: "ramp error 1/Kv");
+        Assert.True(report.Checks.Single(c => c.Name == "overshoot %").Passes);
+    }
+
+    [Fact]
+    public void Run_StrictlyProperPlant_InitialEffortIsHighFrequencyGain()
+    {
+        // u(0+) equals the compensator's high-frequency gain when C·G·H is strictly proper (common practice).
+        var loop = Loop.Create(FromText("10/(s(s+2)(s+10))"));
+        var c = FromText("7.5(s+1.2)/(s+9)");
+        var report = LoopCheck.Run(loop, c, new CheckOptions { ReferenceStep = 2.0, ActuatorLimit = 10 });
+        Tolerance.Close(7.5 * 2.0, report.EffortFigures.Initial, 1e-12);
+        Assert.True(report.EffortFigures.Saturates);
+        Assert.Contains(report.Warnings, w => w.Contains("saturates", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Run_TypeZeroLoop_HasStepErrorOneOverOnePlusKp()
+    {
+        // 3/((s+1)(s+2)): Kp = 1.5, unity feedback step error 1/(1 + Kp) = 0.4; ramp error infinite.
+        var report = LoopCheck.Run(Loop.Create(FromText("3/((s+1)(s+2))")), FromText("1"), new CheckOptions());
+        Tolerance.Close(1.5, report.ErrorConstants.Kp, 1e-14);
+        Tolerance.Close(0.4, report.StepError, 1e-12);
+        Assert.True(double.IsPositiveInfinity(report.RampError));
+        Tolerance.Close(0.6, report.Step.FinalValue, 1e-12);
+    }
+
+    [Fact]
+    public void Run_Unstable_ClaimsNoMargins()
+    {
+        var report = LoopCheck.Run(Loop.Create(FromText("1/(s(s+1)(s+2))")), FromText("10"), new CheckOptions());
+        Assert.False(report.Stable);
+        Assert.Null(report.Margins);
+        Assert.Contains(report.Warnings, w => w.StartsWith("The closed loop is unstable", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void Run_SlowPoleFromCancellationMiss_HorizonCoversTail()
+    {
+        // A near pole–zero pair at −0.05/−0.055 leaves a slow tail; the horizon must follow the slowest pole.
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var report = LoopCheck.Run(loop, FromText("4(s+0.055)/(s+0.05)"), new CheckOptions());
+        var slowest = report.Output.Horizon;
+        Assert.True(slowest > 8.0 / 0.06, $"horizon {slowest}");
+    }
+}
