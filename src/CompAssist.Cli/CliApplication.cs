@@ -22,6 +22,7 @@ public static class CliApplication
         ArgumentNullException.ThrowIfNull(args);
         var root = new RootCommand("CompAssist: design feedback compensators from root-locus conditions and prove the closed loop.");
         root.Subcommands.Add(DesignCommand.Create(stdout, stderr));
+        root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
         var parse = root.Parse(args);
         try
         {

@@ -1,4 +1,6 @@
+using System.Collections.Immutable;
 using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
 
@@ -40,4 +42,10 @@ public sealed record CaseFile
 
     /// <summary>Lead choices.</summary>
     public LeadOptions Lead { get; init; } = new();
+
+    /// <summary>Proof settings: reference step size, actuator limit, simulation length.</summary>
+    public CheckOptions Check { get; init; } = new();
+
+    /// <summary>Plant variations for the robustness sweep (none: no sweep).</summary>
+    public ImmutableArray<PlantVariation> Variations { get; init; } = [];
 }

@@ -1,7 +1,9 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using System.Numerics;
 using System.Text.RegularExpressions;
 using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
 using Tomlyn;
@@ -35,6 +37,10 @@ namespace CompAssist.Core.Cases;
 /// pole = -20.0                     # fixed-pole location
 /// ratio = 10.0                     # pole/zero ratio
 /// max_stage_angle_deg = 60         # per-stage lead limit
+/// [check]
+/// reference_step = 1.0             # size of the reference step for the actuator figures
+/// actuator_limit = 12.0            # largest |u| the actuator delivers
+/// vary = ["gain=20%", "pole=-5:10%"]   # robustness corners
 /// </code>
 /// Unknown keys are errors (a misspelt key must not be silently ignored).
 /// </summary>
@@ -42,10 +48,11 @@ public static partial class CaseFileReader
 {
     private static readonly Dictionary<string, string[]> KnownKeys = new()
     {
-        [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator"],
+        [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator", "check"],
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
         ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target"],
         ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg"],
+        ["check"] = ["reference_step", "actuator_limit", "vary"],
     };
 
     /// <summary>Reads a case file from disk.</summary>
@@ -138,6 +145,7 @@ public static partial class CaseFileReader
             var loop = Table(root, "loop");
             var req = Table(root, "requirements");
             var comp = Table(root, "compensator");
+            var check = Table(root, "check");
             if (Error is not null)
             {
                 return null;
@@ -175,6 +183,33 @@ public static partial class CaseFileReader
                 return Fail($"[compensator] placement = \"{placementText}\" is not a placement", $"Use one of: {string.Join(", ", PlacementNames.All)}.");
             }
 
+            var variations = ImmutableArray.CreateBuilder<PlantVariation>();
+            if (check is not null && check.TryGetValue("vary", out var varyValue))
+            {
+                if (varyValue is not TomlArray list || list.Any(x => x is not string))
+                {
+                    return Fail("[check] vary must be a list of strings", "Write for example vary = [\"gain=20%\", \"pole=-5:10%\"].");
+                }
+
+                foreach (var item in list.Cast<string>())
+                {
+                    var parsed = PlantVariation.Parse(item);
+                    if (!parsed.IsSuccess)
+                    {
+                        return Fail($"[check] vary: {parsed.Problem.Message}", parsed.Problem.Hint);
+                    }
+
+                    variations.Add(parsed.Value);
+                }
+            }
+
+            var referenceStep = Number(check, "check", "reference_step") ?? 1.0;
+            var actuatorLimit = Number(check, "check", "actuator_limit");
+            if (!(referenceStep > 0) || actuatorLimit is <= 0)
+            {
+                return Fail("[check] reference_step and actuator_limit must be positive", "Give positive numbers in the units of the reference and of the actuator command.");
+            }
+
             var padeOrder = Number(loop, "loop", "pade_order") ?? 3;
             if (Error is not null)
             {
@@ -208,6 +243,8 @@ public static partial class CaseFileReader
                     Ratio = Number(comp, "compensator", "ratio"),
                     MaxStageAngleDegrees = Number(comp, "compensator", "max_stage_angle_deg") ?? LeadOptions.DefaultMaxStageAngleDegrees,
                 },
+                Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit },
+                Variations = variations.ToImmutable(),
             } is var result && Error is null ? result : null;
         }
 

@@ -143,22 +143,12 @@ public static class DesignJsonReport
         w.WriteEndArray();
         w.WriteEndObject();
 
+        CheckJsonSection.Write(w, report.Check, report.Robustness);
         w.WriteString("caution", Cautions.Text);
         w.WriteEndObject();
     }
 
-    /// <summary>Writes a number, or "inf"/"-inf"/"nan" as a string.</summary>
-    internal static void Number(Utf8JsonWriter w, string name, double x)
-    {
-        if (double.IsFinite(x))
-        {
-            w.WriteNumber(name, x);
-        }
-        else
-        {
-            w.WriteString(name, double.IsNaN(x) ? "nan" : (x > 0 ? "inf" : "-inf"));
-        }
-    }
+    private static void Number(Utf8JsonWriter w, string name, double x) => JsonNumbers.Write(w, name, x);
 
     private static void Numbers(Utf8JsonWriter w, string name, IEnumerable<double> xs)
     {

@@ -88,10 +88,12 @@ public static class DesignTextReport
         sb.AppendLine($"  stable: {(proof.Stable ? "yes" : "NO")}");
         sb.AppendLine();
 
-        if (proof.Warnings.Length > 0)
+        CheckTextSection.Append(sb, report.Check, report.Robustness);
+        var warnings = proof.Warnings.AddRange(report.Check.Warnings);
+        if (warnings.Length > 0)
         {
             sb.AppendLine("Warnings");
-            foreach (var w in proof.Warnings)
+            foreach (var w in warnings)
             {
                 AppendWrapped(sb, w, "  ! ", "    ");
             }

@@ -7,5 +7,7 @@ namespace CompAssist.Core.Workflow;
 /// <summary>A complete, proved design: how the target was chosen, the design and its proof.</summary>
 /// <param name="Selection">Target and region.</param>
 /// <param name="Design">The synthesized compensator and its reasoning.</param>
-/// <param name="Proof">The closed-loop evidence.</param>
-public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof);
+/// <param name="Proof">The closed-loop roots and the target check.</param>
+/// <param name="Check">What the loop does: simulated step, errors, margins, effort.</param>
+/// <param name="Robustness">The plant-variation sweep, when variations were given.</param>
+public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness);

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using CompAssist.Core.Cases;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
@@ -66,8 +67,22 @@ public static class DesignWorkflow
 
         try
         {
-            var proof = LoopProver.Prove(loop, design.Value.Compensator.TransferFunction, selection.Value.Target);
-            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof));
+            var compensator = design.Value.Compensator.TransferFunction;
+            var proof = LoopProver.Prove(loop, compensator, selection.Value.Target);
+            var check = LoopCheck.Run(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), input.Check, input.Requirements, selection.Value.Target);
+            RobustnessReport? robustness = null;
+            if (!input.Variations.IsEmpty)
+            {
+                var sweep = RobustnessSweep.Run(loop, compensator, input.Variations, input.Check.Intervals);
+                if (!sweep.IsSuccess)
+                {
+                    return DesignRun.Failed(sweep.Problem);
+                }
+
+                robustness = sweep.Value;
+            }
+
+            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof, check, robustness));
         }
         catch (RootFindingException e)
         {
