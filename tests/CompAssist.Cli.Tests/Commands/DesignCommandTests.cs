@@ -147,5 +147,9 @@ public class DesignCommandTests
         var closed = doc.RootElement.GetProperty("closedLoop");
         Assert.True(closed.GetProperty("targetConfirmed").GetBoolean());
         Assert.True(closed.GetProperty("stable").GetBoolean());
+        var check = doc.RootElement.GetProperty("check");
+        Assert.True(check.GetProperty("stable").GetBoolean());
+        Assert.Equal(JsonValueKind.Object, check.GetProperty("margins").ValueKind);
+        Assert.True(check.GetProperty("step").GetProperty("finalValue").GetDouble() > 0);
     }
 }

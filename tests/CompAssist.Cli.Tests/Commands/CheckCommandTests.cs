@@ -1,0 +1,90 @@
+using System.Text.Json;
+using CompAssist.Cli.Tests.Support;
+
+namespace CompAssist.Cli.Tests.Commands;
+
+public class CheckCommandTests
+{
+    [Fact]
+    public void Check_Json_HasMachineInterfaceFields()
+    {
+        var (code, output, error) = CliRunner.Run("check", "--plant", "4/(s(s+2))", "--compensator", "4(s+2)/(s+4)", "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var check = doc.RootElement.GetProperty("check");
+        Assert.True(check.GetProperty("stable").GetBoolean());
+        var step = check.GetProperty("step");
+        // The loop is exactly 16/(s² + 4s + 16): ζ = 0.5 → 16.3 % overshoot (common practice).
+        Assert.Equal(16.3, step.GetProperty("overshootPercent").GetDouble(), 1);
+        Assert.Equal(1.0, step.GetProperty("finalValue").GetDouble(), 12);
+        foreach (var name in new[] { "peakTime", "riseTime", "settlingTime2", "settlingTime5" })
+        {
+            Assert.True(step.GetProperty(name).GetDouble() > 0, name);
+        }
+
+        var margins = check.GetProperty("margins");
+        Assert.Equal("inf", margins.GetProperty("gainMarginDb").GetString());
+        Assert.True(margins.GetProperty("phaseMarginDeg").GetDouble() > 0);
+        foreach (var name in new[] { "gainCrossover", "delayMargin", "sensitivityPeak" })
+        {
+            Assert.True(margins.GetProperty(name).GetDouble() > 0, name);
+        }
+
+        Assert.Equal(JsonValueKind.String, margins.GetProperty("phaseCrossover").ValueKind);
+        Assert.Equal(4.0, check.GetProperty("effort").GetProperty("initial").GetDouble(), 12);
+        Assert.True(check.GetProperty("effort").GetProperty("peak").GetDouble() >= 4.0);
+    }
+
+    [Fact]
+    public void Check_Text_ShowsStepMarginsAndCaution()
+    {
+        var (code, output, _) = CliRunner.Run("check", "--plant", "4/(s(s+2))", "--compensator", "4.7(s+2.93)/(s+5.46)", "--overshoot", "20", "--settling", "2");
+        Assert.Equal(0, code);
+        Assert.Contains("Simulated unit step", output, StringComparison.Ordinal);
+        Assert.Contains("phase margin", output, StringComparison.Ordinal);
+        Assert.Contains("FAIL", output, StringComparison.Ordinal);
+        Assert.Contains("ISO 13849", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_Robustness_ReportsUnstableCorner()
+    {
+        // K/(s(s+1)(s+2)) with K = 5 ± 30 %: the upper corner exceeds the Routh limit K = 6.
+        var (code, output, _) = CliRunner.Run("check", "--plant", "5/(s(s+1)(s+2))", "--compensator", "1", "--vary", "gain=30%", "--json");
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        var robustness = doc.RootElement.GetProperty("check").GetProperty("robustness");
+        Assert.False(robustness.GetProperty("allStable").GetBoolean());
+        Assert.Equal(2, robustness.GetProperty("corners").GetArrayLength());
+    }
+
+    [Fact]
+    public void Check_UnstableLoop_MarginsNull()
+    {
+        var (code, output, _) = CliRunner.Run("check", "--plant", "1/(s(s+1)(s+2))", "--compensator", "10", "--json");
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        Assert.False(doc.RootElement.GetProperty("check").GetProperty("stable").GetBoolean());
+        Assert.Equal(JsonValueKind.Null, doc.RootElement.GetProperty("check").GetProperty("margins").ValueKind);
+    }
+
+    public static TheoryData<string[], int, string> BadCommandLines() => new()
+    {
+        { ["check", "--plant", "1/s"], 2, "error: no compensator given" },
+        { ["check", "--plant", "1/s", "--compensator", "s^3"], 3, "error: The compensated loop C·G·H has more zeros than poles" },
+        { ["check", "--plant", "1/s", "--compensator", "(s+"], 2, "error: cannot read the compensator expression:" },
+        { ["check", "--plant", "1/s", "--compensator", "1", "--vary", "mass=3%"], 2, "error: --vary 'mass' cannot be varied" },
+        { ["check", "--plant", "1/(s+1)", "--compensator", "1", "--vary", "pole=-3:10%"], 3, "error: The plant has no pole at -3 to vary" },
+        { ["check", "--plant", "1/s", "--compensator", "1", "--actuator-limit", "-1"], 2, "must be positive" },
+    };
+
+    [Theory]
+    [MemberData(nameof(BadCommandLines))]
+    public void Check_BadCommandLine_NonZeroExitMessageOnStderrNoStdout(string[] args, int expectedCode, string expectedError)
+    {
+        var (code, output, error) = CliRunner.Run([.. args, "--json"]);
+        Assert.Equal(expectedCode, code);
+        Assert.Contains(expectedError, error, StringComparison.Ordinal);
+        Assert.Equal(string.Empty, output);
+    }
+}
