@@ -108,11 +108,10 @@ public static class LoopCheck
     }
 
     /// <summary>
-    /// Simulation horizon: eight time constants of the slowest decaying pole (so slow tails are not cut off),
-    /// at least ten periods of the fastest oscillation is not needed; for unstable loops, growth over a
-    /// horizon set by the fastest decay so that the divergence is visible without overflow.
+    /// Simulation horizon in seconds: eight time constants of the slowest decaying pole, so slow tails (lag
+    /// dipoles) are not cut off. For an unstable loop, long enough to show the growth without overflowing.
     /// </summary>
-    internal static double Horizon(ImmutableArray<Complex> poles)
+    public static double Horizon(ImmutableArray<Complex> poles)
     {
         var decays = poles.Where(p => p.Real < 0).Select(p => -p.Real).ToList();
         if (poles.Any(p => p.Real >= 0))

@@ -35,10 +35,7 @@ public static class CheckReport
             sb.AppendLine("Warnings");
             foreach (var w in result.Check.Warnings)
             {
-                foreach (var line in TextWrap.Lines(w, 79, "  ! ", "    "))
-                {
-                    sb.AppendLine(line);
-                }
+                TextWrap.AppendTo(sb, w, "  ! ");
             }
 
             sb.AppendLine();

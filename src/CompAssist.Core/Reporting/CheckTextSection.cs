@@ -25,7 +25,7 @@ public static class CheckTextSection
         sb.AppendLine($"  final value {N(m.FinalValue, 6)}; steady-state error r − y: step {N(Clean(check.StepError), 4)}, ramp {N(check.RampError, 4)}");
         var k = check.ErrorConstants;
         sb.AppendLine($"  loop type {k.SystemType}; error constants Kp = {N(k.Kp, 5)}, Kv = {N(k.Kv, 5)}, Ka = {N(k.Ka, 5)}");
-        sb.AppendLine("  (predictions are the second-order figures of the target pole; rise time is measured 10–90 %)");
+        TextWrap.AppendTo(sb, "(predictions are the second-order figures of the target pole; rise time is measured 10–90 %)");
         sb.AppendLine();
 
         sb.AppendLine("Margins (loop C·G·H, delays exact)");
@@ -49,7 +49,7 @@ public static class CheckTextSection
         if (robustness is not null)
         {
             sb.AppendLine($"Robustness ({string.Join(", ", robustness.Variations)}; {robustness.Corners.Length} corners)");
-            sb.AppendLine($"  every corner stable: {(robustness.AllStable ? "yes" : "NO")}; worst overshoot {N(robustness.WorstOvershootPercent, 4)} %, worst 2 % settling {N(robustness.WorstSettlingTime2Percent, 4)} s, least ζ {N(robustness.LeastDamping, 3)}");
+            TextWrap.AppendTo(sb, $"every corner stable: {(robustness.AllStable ? "yes" : "NO")}; worst overshoot {N(robustness.WorstOvershootPercent, 4)} %, worst 2 % settling {N(robustness.WorstSettlingTime2Percent, 4)} s, least ζ {N(robustness.LeastDamping, 3)}");
             foreach (var corner in robustness.Corners.Where(c => !c.Stable))
             {
                 sb.AppendLine($"  ! unstable at factors {string.Join(", ", corner.Factors.Select(f => N(f, 3)))}");

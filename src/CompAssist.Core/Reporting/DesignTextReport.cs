@@ -34,7 +34,7 @@ public static class DesignTextReport
         sb.AppendLine($"  chosen as: {report.Selection.Source}");
         foreach (var c in report.Selection.Constraints)
         {
-            AppendWrapped(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
+            TextWrap.AppendTo(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
         }
 
         var p = target.Predict();
@@ -46,13 +46,13 @@ public static class DesignTextReport
         sb.AppendLine($"Synthesis (lead, placement: {PlacementNames.NameOf(design.Placement)})");
         foreach (var note in design.Notes)
         {
-            AppendWrapped(sb, note, "  ", "    ");
+            TextWrap.AppendTo(sb, note, "  ", "    ");
         }
 
         var i = 1;
         foreach (var st in design.Compensator.Stages)
         {
-            AppendWrapped(sb, $"stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*", "  ", "    ");
+            TextWrap.AppendTo(sb, $"stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*", "  ", "    ");
         }
 
         var c0 = design.Compensator;
@@ -63,7 +63,7 @@ public static class DesignTextReport
         sb.AppendLine();
 
         sb.AppendLine("Proof (closed loop, all roots by root finding)");
-        AppendWrapped(sb, $"characteristic polynomial (descending powers): {string.Join("  ", proof.CharacteristicDescending.Select(x => N(x)))}", "  ", "    ");
+        TextWrap.AppendTo(sb, $"characteristic polynomial (descending powers): {string.Join("  ", proof.CharacteristicDescending.Select(x => N(x)))}", "  ", "    ");
         sb.AppendLine("  closed-loop poles:");
         foreach (var r in proof.Roots.Where(r => r.Value.Imaginary >= 0))
         {
@@ -78,10 +78,10 @@ public static class DesignTextReport
         }
 
         var residual = proof.UsesPade ? proof.TargetResidualExactDelay : proof.TargetResidual;
-        AppendWrapped(sb, proof.TargetConfirmed
+        TextWrap.AppendTo(sb, proof.TargetConfirmed
             ? $"target confirmed as a closed-loop root: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away"
             : $"TARGET NOT CONFIRMED: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away", "  ", "    ");
-        AppendWrapped(sb, $"roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}", "  ", "    ");
+        TextWrap.AppendTo(sb, $"roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}", "  ", "    ");
         sb.AppendLine($"  dominance ratio (slowest other pole's σ / target σ): {(double.IsPositiveInfinity(proof.DominanceRatio) ? "no other poles" : N(proof.DominanceRatio, 3))}");
         var zeros = proof.ClosedLoopZeros.Where(z => z.Imaginary >= 0).Select(Pair).ToList();
         sb.AppendLine($"  closed-loop zeros: {(zeros.Count == 0 ? "none" : string.Join(", ", zeros))}");
@@ -95,7 +95,7 @@ public static class DesignTextReport
             sb.AppendLine("Warnings");
             foreach (var w in warnings)
             {
-                AppendWrapped(sb, w, "  ! ", "    ");
+                TextWrap.AppendTo(sb, w, "  ! ", "    ");
             }
 
             sb.AppendLine();
@@ -108,14 +108,6 @@ public static class DesignTextReport
         }
 
         return sb.ToString();
-    }
-
-    private static void AppendWrapped(StringBuilder sb, string text, string first, string rest)
-    {
-        foreach (var line in TextWrap.Lines(text, 79, first, rest))
-        {
-            sb.AppendLine(line);
-        }
     }
 
     private static string Pair(Complex z) => z.Imaginary > 0 ? $"{N(z.Real)} ± {N(z.Imaginary)}j" : N(z.Real);

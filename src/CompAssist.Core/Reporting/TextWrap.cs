@@ -33,4 +33,14 @@ public static class TextWrap
             yield return prefix + line;
         }
     }
+
+    /// <summary>Appends the wrapped lines of <paramref name="text"/> to a report (79 columns).</summary>
+    public static void AppendTo(StringBuilder sb, string text, string first = "  ", string rest = "    ", int width = 79)
+    {
+        ArgumentNullException.ThrowIfNull(sb);
+        foreach (var line in Lines(text, width, first, rest))
+        {
+            sb.AppendLine(line);
+        }
+    }
 }

@@ -1,0 +1,64 @@
+using System.Diagnostics;
+using System.Globalization;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
+
+namespace CompAssist.Benchmarks;
+
+/// <summary>
+/// The quick mode: a plain timing loop (not BenchmarkDotNet) that finishes in well under a minute and prints
+/// one JSON line per order with p50 and p95 in milliseconds, for comparing with numpy_baseline.py.
+/// </summary>
+public static class QuickRun
+{
+    public static void Print(IEnumerable<int> orders, TextWriter output)
+    {
+        foreach (var order in orders)
+        {
+            var c = BenchmarkLoop.OfOrder(order);
+            var design = LeadDesigner.Design(c.Loop, c.Target, c.Options).Value!;
+            var proof = LoopProver.Prove(c.Loop, design.Compensator.TransferFunction, c.Target);
+            var parts = new (string Name, Func<object> Work)[]
+            {
+                ("redesign", () => RedesignWork.Run(c)),
+                ("synthesis", () => LeadDesigner.Design(c.Loop, c.Target, c.Options)),
+                ("roots", () => LoopProver.Prove(c.Loop, design.Compensator.TransferFunction, c.Target)),
+                ("step", () => RedesignWork.Step(c, design, proof)),
+                ("margins", () => MarginAnalyzer.Analyze(c.Loop, design.Compensator.TransferFunction)),
+            };
+            var fields = new List<string> { $"\"order\": {order}" };
+            foreach (var (name, work) in parts)
+            {
+                var (p50, p95) = Percentiles(work);
+                fields.Add($"\"{name}_p50_ms\": {p50.ToString("0.0000", CultureInfo.InvariantCulture)}");
+                fields.Add($"\"{name}_p95_ms\": {p95.ToString("0.0000", CultureInfo.InvariantCulture)}");
+            }
+
+            var allocated = GC.GetAllocatedBytesForCurrentThread();
+            RedesignWork.Run(c);
+            fields.Add($"\"redesign_alloc_kb\": {((GC.GetAllocatedBytesForCurrentThread() - allocated) / 1024.0).ToString("0.0", CultureInfo.InvariantCulture)}");
+            output.WriteLine("{" + string.Join(", ", fields) + "}");
+        }
+    }
+
+    private static (double P50, double P95) Percentiles(Func<object> work)
+    {
+        var warm = Stopwatch.StartNew();
+        while (warm.ElapsedMilliseconds < 300)
+        {
+            work();
+        }
+
+        var samples = new List<double>();
+        var total = Stopwatch.StartNew();
+        while (samples.Count < 3000 && (samples.Count < 50 || total.ElapsedMilliseconds < 3000))
+        {
+            var t = Stopwatch.GetTimestamp();
+            work();
+            samples.Add(Stopwatch.GetElapsedTime(t).TotalMilliseconds);
+        }
+
+        samples.Sort();
+        return (samples[samples.Count / 2], samples[(int)(samples.Count * 0.95)]);
+    }
+}
