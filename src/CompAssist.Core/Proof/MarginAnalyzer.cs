@@ -5,13 +5,13 @@ using CompAssist.Core.Model;
 namespace CompAssist.Core.Proof;
 
 /// <summary>
-/// Margins on a log-spaced frequency grid evaluated in factored form (log-magnitude and continuous phase
-/// as sums over the factors), with every gain and phase crossover bracketed and refined by bisection.
+/// Margins on a log-spaced frequency grid evaluated in factored form (products of the factors, rescaled
+/// against overflow), with every gain and phase crossover bracketed and refined by bisection.
 /// </summary>
 public static class MarginAnalyzer
 {
     /// <summary>Number of grid points.</summary>
-    public const int GridPoints = 1600;
+    public const int GridPoints = 1200;
 
     /// <summary>Computes the margins of the loop with the compensator (sign folded in, delay exact).</summary>
     public static StabilityMargins Analyze(Loop loop, TransferFunction compensator)
@@ -73,7 +73,7 @@ public static class MarginAnalyzer
             }
         }
 
-        var (ms, wms) = SensitivityPeak(open, w);
+        var (ms, wms) = SensitivityPeak(open, w, mag, phase);
         return new StabilityMargins(gm, wp, gmDown, pm, wc, dm, ms, wms);
     }
 
@@ -90,29 +90,53 @@ public static class MarginAnalyzer
         return (Math.Min(lo, 1e-3), Math.Max(hi, 1e3));
     }
 
-    /// <summary>ln|L(jω)| and a continuous phase (radians), summed over the factors.</summary>
+    /// <summary>
+    /// ln|L(jω)| and the phase of L(jω) in (−π, π], from the factor products Π(jω − z) and Π(jω − p)
+    /// accumulated separately with periodic rescaling: one logarithm and one arctangent per frequency.
+    /// Crossover detection works on the phase modulo 2π, so no unwrapping is needed.
+    /// </summary>
     internal static (double LogMagnitude, double Phase) LogMagnitudeAndPhase(TransferFunction open, double omega)
     {
-        var logMag = Math.Log(Math.Abs(open.Gain));
-        var phase = open.Gain < 0 ? Math.PI : 0.0;
-        foreach (var z in open.Zeros)
-        {
-            logMag += Math.Log(Complex.Abs(new Complex(-z.Real, omega - z.Imaginary)));
-            phase += FactorPhase(z, omega);
-        }
+        var (nr, ni, ne) = Product(open.Zeros, omega);
+        var (dr, di, de) = Product(open.Poles, omega);
+        var logMag = Math.Log(Math.Abs(open.Gain))
+            + (0.5 * Math.Log(((nr * nr) + (ni * ni)) / ((dr * dr) + (di * di))))
+            + ((ne - de) * Math.Log(2.0));
 
-        foreach (var p in open.Poles)
+        // ∠(N/D) = ∠(N·conj(D)).
+        var phase = Math.Atan2((ni * dr) - (nr * di), (nr * dr) + (ni * di));
+        if (open.Gain < 0)
         {
-            logMag -= Math.Log(Complex.Abs(new Complex(-p.Real, omega - p.Imaginary)));
-            phase -= FactorPhase(p, omega);
+            phase += Math.PI;
         }
 
         return (logMag, phase - (omega * open.Delay));
     }
 
-    /// <summary>∠(jω − r), continuous in ω (for right-half-plane r as π + ∠(r − jω), which has no branch cut there).</summary>
-    private static double FactorPhase(Complex r, double omega) =>
-        r.Real > 0 ? Math.PI + Math.Atan2(r.Imaginary - omega, r.Real) : Math.Atan2(omega - r.Imaginary, -r.Real);
+    private static (double Re, double Im, int Exponent) Product(System.Collections.Immutable.ImmutableArray<Complex> roots, double omega)
+    {
+        double re = 1.0, im = 0.0;
+        var exponent = 0;
+        foreach (var r in roots)
+        {
+            // (re + j·im)·(−Re r + j(ω − Im r))
+            var fr = -r.Real;
+            var fi = omega - r.Imaginary;
+            var nre = (re * fr) - (im * fi);
+            im = (re * fi) + (im * fr);
+            re = nre;
+            var size = Math.Abs(re) + Math.Abs(im);
+            if (size > 1e100 || size < 1e-100)
+            {
+                var e = Math.ILogB(size);
+                re = Math.ScaleB(re, -e);
+                im = Math.ScaleB(im, -e);
+                exponent += e;
+            }
+        }
+
+        return (re, im, exponent);
+    }
 
     /// <summary>The phase measured from −180°, wrapped to (−π, π].</summary>
     private static double WrappedFromMinus180(double phase)
@@ -121,19 +145,27 @@ public static class MarginAnalyzer
         return x <= -Math.PI ? x + (2 * Math.PI) : x;
     }
 
-    private static (double Peak, double Frequency) SensitivityPeak(TransferFunction open, double[] w)
+    private static (double Peak, double Frequency) SensitivityPeak(TransferFunction open, double[] w, double[] logMag, double[] phase)
     {
+        static double FromPolar(double logMagnitude, double angle)
+        {
+            var m = Math.Exp(logMagnitude);
+            var re = 1.0 + (m * Math.Cos(angle));
+            var im = m * Math.Sin(angle);
+            return 1.0 / Math.Sqrt((re * re) + (im * im));
+        }
+
         double Sensitivity(double omega)
         {
-            var l = open.Evaluate(new Complex(0, omega));
-            return 1.0 / Complex.Abs(1.0 + l);
+            var (lm, ph) = LogMagnitudeAndPhase(open, omega);
+            return FromPolar(lm, ph);
         }
 
         var best = 0;
-        var bestValue = Sensitivity(w[0]);
+        var bestValue = FromPolar(logMag[0], phase[0]);
         for (var i = 1; i < w.Length; i++)
         {
-            var v = Sensitivity(w[i]);
+            var v = FromPolar(logMag[i], phase[i]);
             if (v > bestValue)
             {
                 bestValue = v;

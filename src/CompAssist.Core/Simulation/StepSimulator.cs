@@ -24,6 +24,34 @@ public static class StepSimulator
         var n = system.Order;
         var (phi, gamma) = Discretize(system, sampleTime);
         var c = system.CopyC();
+
+        // Φ of a cascade is block lower-triangular: each row keeps only its span of non-zero columns,
+        // packed into one flat array for a tight inner loop.
+        var start = new int[n];
+        var offset = new int[n + 1];
+        var packed = new List<double>(n * n);
+        for (var i = 0; i < n; i++)
+        {
+            int first = n, last = -1;
+            for (var j = 0; j < n; j++)
+            {
+                if (phi[i, j] != 0.0)
+                {
+                    first = Math.Min(first, j);
+                    last = j;
+                }
+            }
+
+            start[i] = first;
+            offset[i] = packed.Count;
+            for (var j = first; j <= last; j++)
+            {
+                packed.Add(phi[i, j]);
+            }
+        }
+
+        offset[n] = packed.Count;
+        var rows = packed.ToArray();
         var x = new double[n];
         var next = new double[n];
         var y = ImmutableArray.CreateBuilder<double>(intervals + 1);
@@ -38,19 +66,39 @@ public static class StepSimulator
             y.Add(yk);
             for (var i = 0; i < n; i++)
             {
-                var sum = gamma[i];
-                for (var j = 0; j < n; j++)
-                {
-                    sum += phi[i, j] * x[j];
-                }
-
-                next[i] = sum;
+                var row = rows.AsSpan(offset[i], offset[i + 1] - offset[i]);
+                var state = x.AsSpan(start[i], row.Length);
+                next[i] = gamma[i] + Dot(row, state);
             }
 
             (x, next) = (next, x);
         }
 
         return new SampledResponse(sampleTime, y.MoveToImmutable());
+    }
+
+    private static double Dot(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    {
+        var sum = 0.0;
+        var j = 0;
+        if (System.Numerics.Vector.IsHardwareAccelerated && a.Length >= System.Numerics.Vector<double>.Count)
+        {
+            var acc = System.Numerics.Vector<double>.Zero;
+            var width = System.Numerics.Vector<double>.Count;
+            for (; j <= a.Length - width; j += width)
+            {
+                acc += new System.Numerics.Vector<double>(a[j..]) * new System.Numerics.Vector<double>(b[j..]);
+            }
+
+            sum = System.Numerics.Vector.Sum(acc);
+        }
+
+        for (; j < a.Length; j++)
+        {
+            sum += a[j] * b[j];
+        }
+
+        return sum;
     }
 
     /// <summary>(Φ, Γ) = (e^{Ah}, ∫₀ʰ e^{Aτ} dτ B) from one exponential of the augmented matrix.</summary>
