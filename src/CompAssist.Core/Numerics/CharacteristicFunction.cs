@@ -69,10 +69,15 @@ public sealed class CharacteristicFunction : IRootFunction
         return (dv + (Gain * nv), dd + (Gain * nd), scale);
     }
 
-    /// <summary>|D + kN| / (|D| + |k||N|) at <paramref name="s"/>: zero exactly at a root, 1 at worst.</summary>
+    /// <summary>
+    /// The mixed relative residual |D + kN| / (|D| + |k||N| + |F′(s)|·|s|) at <paramref name="s"/>: zero at a
+    /// root, at most 1. The last term is what moving s by its own size changes F by, so a point within rounding
+    /// of a root scores at rounding level even where D and kN nearly cancel (next to a pole or a zero).
+    /// </summary>
     public double RelativeResidual(Complex s)
     {
-        var (v, _, scale) = Evaluate(s);
-        return scale > 0 ? Complex.Abs(v) / scale : 0.0;
+        var (v, d, scale) = Evaluate(s);
+        var denominator = scale + (Complex.Abs(d) * Complex.Abs(s));
+        return denominator > 0 ? Complex.Abs(v) / denominator : 0.0;
     }
 }

@@ -1,0 +1,352 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
+
+namespace CompAssist.Core.Locus;
+
+/// <summary>
+/// All branches of D(s) + K·g·N(s) = 0 for K from 0 to ∞ by predictor–corrector continuation in ln K:
+/// an Euler predictor along the tangent dr/d(ln K) = −K·g·N/F′, Newton correction in product form, step
+/// control by root movement (relative to the root's size and to its nearest neighbour, so branches neither
+/// jump nor collapse onto each other), an eigenvalue re-seed with optimal assignment where steps become tiny
+/// (near break points), and for K &gt; 1 evaluation of D/K + g·N (the 1/K form) toward K → ∞.
+/// </summary>
+public static class LocusEngine
+{
+    private const int MaxSteps = 20000;
+
+    /// <summary>The locus of the loop with an optional compensator (default 1), sign folded in.</summary>
+    public static LocusResult Compute(Loop loop, TransferFunction? compensator = null)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        var c = compensator ?? TransferFunction.Unity;
+        var open = loop.RationalOpenLoop(c).Scaled(loop.SignFactor);
+        if (!open.IsProper)
+        {
+            throw new ArgumentException("The open loop must be proper for a locus.", nameof(compensator));
+        }
+
+        var approximate = loop.OpenLoop(c).Delay > 0;
+        var poles = open.Poles;
+        var zeros = open.Zeros;
+        var g = open.Gain;
+        var n = poles.Length;
+        var scale = RegionScale(poles, zeros);
+        var kRef = ReferenceGain(poles, zeros, g);
+        var branches = new List<LocusPoint>[n];
+        var roots = new Complex[n];
+        for (var i = 0; i < n; i++)
+        {
+            roots[i] = poles[i];
+            branches[i] = [new LocusPoint(0.0, poles[i])];
+        }
+
+        var steps = 0;
+        var reseeds = 0;
+        if (n > 0)
+        {
+            // First point off the poles: an eigenvalue solve at a small gain, assigned to the poles.
+            var k = kRef * 1e-7;
+            Complex[] start;
+            while (true)
+            {
+                start = Reseed(poles, zeros, g, k, roots);
+                reseeds++;
+                var moved = Enumerable.Range(0, n).Max(i => Complex.Abs(start[i] - roots[i]) / Math.Max(Complex.Abs(roots[i]), 0.05 * scale));
+                if (moved > 1e-4 || k > kRef * 1e3)
+                {
+                    break;
+                }
+
+                k *= 10;
+            }
+
+            roots = start;
+            Append(branches, k, roots);
+            var t = Math.Log(k);
+            var dt = 0.05;
+            var tEnd = Math.Log(kRef * 1e12);
+            var next = new Complex[n];
+            var slope = Tangents(roots, poles, zeros, g, k);
+            var nextSlope = new Complex[n];
+            var allowance = new double[n];
+            while (t < tEnd && steps < MaxSteps && !Finished(roots, zeros, scale))
+            {
+                steps++;
+                var kNow = Math.Exp(t);
+                Allowances(roots, scale, allowance);
+                dt = Math.Min(dt, PredictedStep(roots, slope, allowance, kNow));
+                var kNext = Math.Exp(t + dt);
+                if (TryStep(roots, slope, allowance, next, nextSlope, poles, zeros, g, kNow, kNext, scale))
+                {
+                    (roots, next) = (next, roots);
+                    (slope, nextSlope) = (nextSlope, slope);
+                    t += dt;
+                    Append(branches, kNext, roots);
+                    dt = Math.Min(dt * 2.0, 1.0);
+                }
+                else if (dt > 1e-5)
+                {
+                    dt *= 0.35;
+                }
+                else
+                {
+                    // Near a break point: jump with the eigenvalue solver and assign by optimal matching.
+                    var jump = 0.02;
+                    var kJump = Math.Exp(t + jump);
+                    roots = Reseed(poles, zeros, g, kJump, roots);
+                    slope = Tangents(roots, poles, zeros, g, kJump);
+                    reseeds++;
+                    t += jump;
+                    Append(branches, kJump, roots);
+                    dt = 0.01;
+                }
+            }
+        }
+
+        var ends = roots.Select(r => NearestZero(r, zeros, scale)).ToImmutableArray();
+        return LocusFeatures.Complete(
+            branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, approximate, steps, reseeds);
+    }
+
+    private static void Append(List<LocusPoint>[] branches, double k, Complex[] roots)
+    {
+        for (var i = 0; i < roots.Length; i++)
+        {
+            branches[i].Add(new LocusPoint(k, roots[i]));
+        }
+    }
+
+    /// <summary>The ln K step at which the tangent predicts each root to move by 80 % of its allowance.</summary>
+    private static double PredictedStep(Complex[] roots, Complex[] slope, double[] allowance, double k)
+    {
+        var best = double.PositiveInfinity;
+        for (var i = 0; i < roots.Length; i++)
+        {
+            var speed = k * Complex.Abs(slope[i]);
+            if (speed > 0)
+            {
+                best = Math.Min(best, 0.8 * allowance[i] / speed);
+            }
+        }
+
+        return Math.Max(best, 1e-6);
+    }
+
+    /// <summary>
+    /// How far each root may move in one step: under 40 % of the distance to its nearest neighbour (no branch
+    /// jumping) and 15 % of its own size (plot resolution).
+    /// </summary>
+    private static void Allowances(Complex[] roots, double scale, double[] allowance)
+    {
+        var n = roots.Length;
+        for (var i = 0; i < n; i++)
+        {
+            allowance[i] = double.PositiveInfinity;
+        }
+
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = i + 1; j < n; j++)
+            {
+                var dx = roots[i].Real - roots[j].Real;
+                var dy = roots[i].Imaginary - roots[j].Imaginary;
+                var d2 = (dx * dx) + (dy * dy);
+                allowance[i] = Math.Min(allowance[i], d2);
+                allowance[j] = Math.Min(allowance[j], d2);
+            }
+        }
+
+        for (var i = 0; i < n; i++)
+        {
+            allowance[i] = Math.Min(0.4 * Math.Sqrt(allowance[i]), 0.15 * Math.Max(Complex.Abs(roots[i]), 0.05 * scale));
+        }
+    }
+
+    /// <summary>dr/dK = −g·N(r)/(D′ + K·g·N′) for every root.</summary>
+    private static Complex[] Tangents(Complex[] roots, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k)
+    {
+        var result = new Complex[roots.Length];
+        for (var i = 0; i < roots.Length; i++)
+        {
+            var (_, fs, nValue) = Evaluate(poles, zeros, g, k, roots[i]);
+            result[i] = Slope(fs, nValue, g, k);
+        }
+
+        return result;
+    }
+
+    private static Complex Slope(Complex fs, Complex nValue, double g, double k) =>
+        fs == Complex.Zero ? Complex.Zero : -(g * nValue) / fs * (k > 1 ? 1.0 / k : 1.0);
+
+    /// <summary>
+    /// One predictor–corrector step from K to K′ (Euler predictor on dr/dK, Newton corrector); also returns the
+    /// tangents at the new roots from the last Newton evaluation. False when it must be retried smaller.
+    /// </summary>
+    private static bool TryStep(Complex[] roots, Complex[] slope, double[] allowance, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k, double kNext, double scale)
+    {
+        var n = roots.Length;
+        var growth = kNext - k;
+        for (var i = 0; i < n; i++)
+        {
+            var r = roots[i];
+            var x = r + (growth * slope[i]);
+            var converged = false;
+            for (var it = 0; it < 6; it++)
+            {
+                var (f, d, nValue) = Evaluate(poles, zeros, g, kNext, x);
+                if (d == Complex.Zero)
+                {
+                    break;
+                }
+
+                var step = f / d;
+                x -= step;
+                nextSlope[i] = Slope(d, nValue, g, kNext);
+                if (Complex.Abs(step) <= 1e-10 * Math.Max(Complex.Abs(x), 1e-3 * scale))
+                {
+                    converged = true;
+                    break;
+                }
+            }
+
+            if (!converged || !double.IsFinite(x.Real) || !double.IsFinite(x.Imaginary))
+            {
+                return false;
+            }
+
+            if (r.Imaginary == 0 && Math.Abs(x.Imaginary) <= 1e-12 * Math.Max(Complex.Abs(x), scale))
+            {
+                x = new Complex(x.Real, 0);
+            }
+
+            if (Complex.Abs(x - r) > allowance[i])
+            {
+                return false;
+            }
+
+            next[i] = x;
+        }
+
+        // No two branches may have converged onto the same root: with every move under 40 % of the
+        // nearest-neighbour distance, two roots can only meet if one of them jumped.
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = i + 1; j < n; j++)
+            {
+                var dx = next[i].Real - next[j].Real;
+                var dy = next[i].Imaginary - next[j].Imaginary;
+                var tiny = 1e-6 * Math.Max(scale, Complex.Abs(next[i]));
+                if ((dx * dx) + (dy * dy) < tiny * tiny)
+                {
+                    return false;
+                }
+            }
+        }
+
+        return true;
+    }
+
+    /// <summary>
+    /// F(s) = D + K·g·N for K ≤ 1, or D/K + g·N for K &gt; 1 (same roots, no overflow), its s-derivative, and N(s).
+    /// </summary>
+    private static (Complex F, Complex Fs, Complex N) Evaluate(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k, Complex s)
+    {
+        Complex d = 1, dd = 0, nv = 1, nd = 0;
+        foreach (var p in poles)
+        {
+            var f = s - p;
+            dd = (dd * f) + d;
+            d *= f;
+        }
+
+        foreach (var z in zeros)
+        {
+            var f = s - z;
+            nd = (nd * f) + nv;
+            nv *= f;
+        }
+
+        return k > 1
+            ? ((d / k) + (g * nv), (dd / k) + (g * nd), nv)
+            : (d + (k * g * nv), dd + (k * g * nd), nv);
+    }
+
+    private static Complex[] Reseed(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k, Complex[] previous)
+    {
+        var f = new CharacteristicFunction(FactoredPolynomial.Create(1.0, poles), k * g, FactoredPolynomial.Create(1.0, zeros));
+        var found = RootFinder.Find(f).Roots;
+        var n = previous.Length;
+        var cost = new double[n, n];
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = 0; j < n; j++)
+            {
+                cost[i, j] = Complex.Abs(found[j] - previous[i]);
+            }
+        }
+
+        var assignment = Assignment.Solve(cost);
+        return [.. Enumerable.Range(0, n).Select(i => found[assignment[i]])];
+    }
+
+    private static bool Finished(Complex[] roots, ImmutableArray<Complex> zeros, double scale)
+    {
+        foreach (var r in roots)
+        {
+            if (Complex.Abs(r) > 20 * scale)
+            {
+                continue;
+            }
+
+            if (NearestZero(r, zeros, scale) is null)
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    private static Complex? NearestZero(Complex r, ImmutableArray<Complex> zeros, double scale)
+    {
+        foreach (var z in zeros)
+        {
+            if (Complex.Abs(r - z) <= 1e-4 * Math.Max(Complex.Abs(z), 0.02 * scale))
+            {
+                return z;
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>The size of the interesting region: the largest pole/zero magnitude (at least 1e-3).</summary>
+    internal static double RegionScale(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros)
+    {
+        var sizes = poles.Concat(zeros).Select(r => r.Magnitude).ToList();
+        return Math.Max(sizes.Count == 0 ? 1.0 : sizes.Max(), 1e-3);
+    }
+
+    /// <summary>A gain that moves roots by about their own size: |D/(g·N)| at jω₀, ω₀ the geometric mean of the corners.</summary>
+    private static double ReferenceGain(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g)
+    {
+        var corners = poles.Concat(zeros).Select(r => r.Magnitude).Where(m => m > 0).ToList();
+        var w0 = corners.Count == 0 ? 1.0 : Math.Exp(corners.Average(Math.Log));
+        var s = new Complex(0, w0);
+        Complex d = 1, nv = 1;
+        foreach (var p in poles)
+        {
+            d *= s - p;
+        }
+
+        foreach (var z in zeros)
+        {
+            nv *= s - z;
+        }
+
+        var kRef = Complex.Abs(d) / (Math.Abs(g) * Complex.Abs(nv));
+        return double.IsFinite(kRef) && kRef > 0 ? kRef : 1.0;
+    }
+}
