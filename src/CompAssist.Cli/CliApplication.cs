@@ -23,6 +23,7 @@ public static class CliApplication
         var root = new RootCommand("CompAssist: design feedback compensators from root-locus conditions and prove the closed loop.");
         root.Subcommands.Add(DesignCommand.Create(stdout, stderr));
         root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
+        root.Subcommands.Add(LocusCommand.Create(stdout, stderr));
         var parse = root.Parse(args);
         try
         {

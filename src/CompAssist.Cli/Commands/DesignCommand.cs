@@ -56,7 +56,7 @@ internal static class DesignCommand
         }
 
         var report = run.Report!;
-        stdout.Write(parse.GetValue(s.Loop.Json) ? DesignJsonReport.Render(report) + Environment.NewLine : DesignTextReport.Render(report, input.Name));
+        stdout.Write(parse.GetValue(s.Loop.Json) ? DesignJsonReport.Render(report) + Environment.NewLine : DesignTextReport.Render(report, input.Name, s.Loop.Style(parse)));
         return CliApplication.Success;
     }
 }

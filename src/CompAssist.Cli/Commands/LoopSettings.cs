@@ -46,11 +46,15 @@ internal sealed class LoopSettings
 
     public Option<bool> Json { get; } = new("--json") { Description = "Machine-readable JSON on stdout." };
 
+    public Option<bool> Ascii { get; } = new("--ascii") { Description = "Draw pictures with plain ASCII instead of Unicode." };
+
     public IEnumerable<Option> Options =>
     [
         Plant, Feedback, PositiveFeedback, PadeOrder, Target, Zeta, Wn, Overshoot, Settling, Band, PeakTime,
-        ActuatorLimit, ReferenceStep, Vary, Json,
+        ActuatorLimit, ReferenceStep, Vary, Json, Ascii,
     ];
+
+    public Core.Pictures.PictureStyle Style(ParseResult parse) => parse.GetValue(Ascii) ? Core.Pictures.PictureStyle.Ascii : Core.Pictures.PictureStyle.Unicode;
 
     public void AddTo(Command command)
     {

@@ -47,19 +47,27 @@ public static class TransferFunctionFormatter
     public static string Factored(TransferFunction tf, int digits = 6)
     {
         ArgumentNullException.ThrowIfNull(tf);
-        var num = Factors(tf.Zeros, digits);
-        var den = Factors(tf.Poles, digits);
+        var numFactors = FactorList(tf.Zeros, digits);
+        var denFactors = FactorList(tf.Poles, digits);
         var sb = new StringBuilder();
-        sb.Append(Number(tf.Gain, digits));
-        if (num.Length > 0)
+        if (numFactors.Count == 0 || Math.Abs(tf.Gain) != 1.0)
         {
-            sb.Append(' ').Append(num);
+            sb.Append(Number(tf.Gain, digits));
+        }
+        else if (tf.Gain < 0)
+        {
+            sb.Append('-');
         }
 
-        if (den.Length > 0)
+        if (numFactors.Count > 0)
+        {
+            sb.Append(sb.Length > 0 && sb[^1] != '-' ? " " : string.Empty).Append(string.Join(' ', numFactors));
+        }
+
+        if (denFactors.Count > 0)
         {
             sb.Append(" / ");
-            sb.Append(tf.Poles.Length == 1 && den.StartsWith('(') ? den : "(" + den + ")");
+            sb.Append(denFactors.Count == 1 && denFactors[0].StartsWith('(') ? denFactors[0] : "(" + string.Join(' ', denFactors) + ")");
         }
 
         if (tf.Delay > 0)
@@ -70,7 +78,7 @@ public static class TransferFunctionFormatter
         return sb.ToString();
     }
 
-    private static string Factors(IReadOnlyList<Complex> roots, int digits)
+    private static List<string> FactorList(IReadOnlyList<Complex> roots, int digits)
     {
         var parts = new List<string>();
         foreach (var r in roots.OrderBy(r => r.Magnitude).ThenBy(r => r.Imaginary))
@@ -98,6 +106,6 @@ public static class TransferFunctionFormatter
             }
         }
 
-        return string.Join(' ', parts);
+        return parts;
     }
 }

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using CompAssist.Core.Model;
+using CompAssist.Core.Pictures;
 using CompAssist.Core.Proof;
 
 namespace CompAssist.Core.Reporting;
@@ -9,7 +10,7 @@ namespace CompAssist.Core.Reporting;
 public static class CheckTextSection
 {
     /// <summary>Appends the step, errors, margins, effort and robustness sections.</summary>
-    public static void Append(StringBuilder sb, LoopCheckReport check, RobustnessReport? robustness)
+    public static void Append(StringBuilder sb, LoopCheckReport check, RobustnessReport? robustness, PictureStyle style = PictureStyle.Unicode)
     {
         ArgumentNullException.ThrowIfNull(sb);
         ArgumentNullException.ThrowIfNull(check);
@@ -26,6 +27,7 @@ public static class CheckTextSection
         var k = check.ErrorConstants;
         sb.AppendLine($"  loop type {k.SystemType}; error constants Kp = {N(k.Kp, 5)}, Kv = {N(k.Kv, 5)}, Ka = {N(k.Ka, 5)}");
         TextWrap.AppendTo(sb, "(predictions are the second-order figures of the target pole; rise time is measured 10–90 %)");
+        sb.Append(StepStripRenderer.Render(check.Output, m.FinalValue, 78, 9, style));
         sb.AppendLine();
 
         sb.AppendLine("Margins (loop C·G·H, delays exact)");

@@ -144,6 +144,9 @@ public static class DesignJsonReport
         w.WriteEndObject();
 
         CheckJsonSection.Write(w, report.Check, report.Robustness);
+        w.WriteStartObject("locus");
+        LocusReport.WriteFeatures(w, report.Locus);
+        w.WriteEndObject();
         w.WriteString("caution", Cautions.Text);
         w.WriteEndObject();
     }

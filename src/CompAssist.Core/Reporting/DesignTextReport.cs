@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Numerics;
 using System.Text;
 using CompAssist.Core.Model;
+using CompAssist.Core.Pictures;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Workflow;
@@ -12,7 +13,7 @@ namespace CompAssist.Core.Reporting;
 public static class DesignTextReport
 {
     /// <summary>Renders a proved design.</summary>
-    public static string Render(DesignReport report, string title = "")
+    public static string Render(DesignReport report, string title = "", PictureStyle style = PictureStyle.Unicode)
     {
         ArgumentNullException.ThrowIfNull(report);
         var sb = new StringBuilder();
@@ -88,7 +89,22 @@ public static class DesignTextReport
         sb.AppendLine($"  stable: {(proof.Stable ? "yes" : "NO")}");
         sb.AppendLine();
 
-        CheckTextSection.Append(sb, report.Check, report.Robustness);
+        sb.AppendLine("s-plane (locus of the compensated loop; ■ the designed closed-loop poles)");
+        LocusReport.AppendFeatures(sb, report.Locus);
+        var scene = new SPlaneScene
+        {
+            Branches = LocusReport.Polylines(report.Locus),
+            Poles = report.Locus.Poles,
+            Zeros = report.Locus.Zeros,
+            ClosedLoopPoles = [.. proof.Roots.Select(r => r.Value)],
+            Target = target.Point,
+            ZetaGuide = target.Zeta,
+            NaturalFrequencyGuide = target.NaturalFrequency,
+        };
+        var view = PlaneView.Frame([target.Point, Complex.Conjugate(target.Point)], report.Locus.Poles.Concat(report.Locus.Zeros).Concat(proof.Roots.Select(r => r.Value)));
+        sb.Append(SPlaneRenderer.Render(scene, view, 78, 20, style));
+        sb.AppendLine();
+        CheckTextSection.Append(sb, report.Check, report.Robustness, style);
         var warnings = proof.Warnings.AddRange(report.Check.Warnings);
         if (warnings.Length > 0)
         {

@@ -1,3 +1,4 @@
+using CompAssist.Core.Locus;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
@@ -10,4 +11,5 @@ namespace CompAssist.Core.Workflow;
 /// <param name="Proof">The closed-loop roots and the target check.</param>
 /// <param name="Check">What the loop does: simulated step, errors, margins, effort.</param>
 /// <param name="Robustness">The plant-variation sweep, when variations were given.</param>
-public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness);
+/// <param name="Locus">The root locus of the compensated loop C·G·H (its gain factor K = 1 is the design).</param>
+public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness, LocusResult Locus);

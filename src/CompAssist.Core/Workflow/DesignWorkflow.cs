@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using CompAssist.Core.Cases;
 using CompAssist.Core.Common;
+using CompAssist.Core.Locus;
 using CompAssist.Core.Model;
 using CompAssist.Core.Numerics;
 using CompAssist.Core.Parsing;
@@ -82,7 +83,8 @@ public static class DesignWorkflow
                 robustness = sweep.Value;
             }
 
-            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof, check, robustness));
+            var locus = LocusEngine.Compute(loop, compensator);
+            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof, check, robustness, locus));
         }
         catch (RootFindingException e)
         {

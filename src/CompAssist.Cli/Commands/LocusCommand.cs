@@ -1,0 +1,70 @@
+using System.CommandLine;
+using CompAssist.Core.Locus;
+using CompAssist.Core.Numerics;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Reporting;
+using CompAssist.Core.Workflow;
+
+namespace CompAssist.Cli.Commands;
+
+/// <summary><c>compassist locus</c>: the root locus of a loop, its exact features and a text picture.</summary>
+internal static class LocusCommand
+{
+    public static Command Create(TextWriter stdout, TextWriter stderr)
+    {
+        var loop = new LoopSettings();
+        var compensator = new Option<string?>("--compensator") { Description = "Compensator C(s) in the loop (default 1); K multiplies C·G·H." };
+        var command = new Command("locus", "Root locus of 1 + K·C·G·H = 0 for K from 0 to ∞: branches, asymptotes, break points, axis crossings.");
+        loop.AddTo(command);
+        command.Options.Add(compensator);
+        command.SetAction(parse =>
+        {
+            var input = loop.Apply(parse, stderr, out var code);
+            if (input is null)
+            {
+                return code;
+            }
+
+            if (input.Plant is null)
+            {
+                stderr.WriteLine("error: No plant is given. Pass --plant \"EXPR\" or a case file.");
+                return CliApplication.InputError;
+            }
+
+            var (built, fieldError, problem) = DesignWorkflow.BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
+            if (Errors.Report(fieldError, problem, false, stderr) is { } failure)
+            {
+                return failure;
+            }
+
+            var c = ExpressionParser.Parse(parse.GetValue(compensator) ?? "1", requireProper: false);
+            if (!c.IsSuccess)
+            {
+                return Errors.Report(new FieldError("compensator", c.Error), null, false, stderr)!.Value;
+            }
+
+            if (!built!.OpenLoop(c.Value).IsProper)
+            {
+                stderr.WriteLine("error: The loop C·G·H has more zeros than poles, so it has no root locus.");
+                stderr.WriteLine("hint: Add a filter pole to the compensator.");
+                return CliApplication.Refused;
+            }
+
+            LocusResult result;
+            try
+            {
+                result = LocusEngine.Compute(built, c.Value);
+            }
+            catch (RootFindingException e)
+            {
+                stderr.WriteLine($"error: The locus could not be verified: {e.Message}.");
+                stderr.WriteLine("hint: Enter the loop in factored form or reduce its order.");
+                return CliApplication.Refused;
+            }
+
+            stdout.Write(parse.GetValue(loop.Json) ? LocusReport.RenderJson(result) + Environment.NewLine : LocusReport.RenderText(result, built, loop.Style(parse)));
+            return CliApplication.Success;
+        });
+        return command;
+    }
+}
