@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Globalization;
+using CompAssist.Core.Locus;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 
@@ -35,6 +36,7 @@ public static class QuickRun
                 ("synthesis", () => LeadDesigner.Design(c.Loop, c.Target, c.Options)),
                 ("roots", () => LoopProver.Prove(c.Loop, design.Compensator.TransferFunction, c.Target)),
                 ("step", () => RedesignWork.Step(c, design, proof)),
+                ("locus", () => LocusEngine.Compute(c.Loop, design.Compensator.TransferFunction)),
                 ("margins", () => MarginAnalyzer.Analyze(c.Loop, design.Compensator.TransferFunction)),
             };
             var fields = new List<string> { $"\"order\": {order}" };

@@ -1,4 +1,5 @@
 using BenchmarkDotNet.Attributes;
+using CompAssist.Core.Locus;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 
@@ -34,6 +35,9 @@ public class RedesignBenchmarks
 
     [Benchmark(Description = "step (2000 samples, y and u)")]
     public object Step() => RedesignWork.Step(_case, _design, _proof);
+
+    [Benchmark(Description = "locus")]
+    public object Locus() => LocusEngine.Compute(_case.Loop, _design.Compensator.TransferFunction);
 
     [Benchmark(Description = "margins")]
     public object Margins() => MarginAnalyzer.Analyze(_case.Loop, _design.Compensator.TransferFunction);

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using CompAssist.Core.Locus;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Simulation;
 using CompAssist.Core.Synthesis;
@@ -13,7 +14,8 @@ public static class RedesignWork
         var design = LeadDesigner.Design(c.Loop, c.Target, c.Options).Value!;
         var compensator = design.Compensator.TransferFunction;
         var proof = LoopProver.Prove(c.Loop, compensator, c.Target);
-        return LoopCheck.Run(c.Loop, compensator, Poles(proof), new CheckOptions(), null, c.Target);
+        var check = LoopCheck.Run(c.Loop, compensator, Poles(proof), new CheckOptions(), null, c.Target);
+        return (check, LocusEngine.Compute(c.Loop, compensator));
     }
 
     public static object Step(BenchmarkLoop c, Design design, LoopProof proof)
