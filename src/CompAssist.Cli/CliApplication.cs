@@ -24,6 +24,7 @@ public static class CliApplication
         root.Subcommands.Add(DesignCommand.Create(stdout, stderr));
         root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
         root.Subcommands.Add(LocusCommand.Create(stdout, stderr));
+        root.Subcommands.Add(PlotCommand.Create(stdout, stderr));
         var parse = root.Parse(args);
         try
         {

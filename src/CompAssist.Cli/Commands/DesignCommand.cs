@@ -19,35 +19,11 @@ internal static class DesignCommand
 
     private static int Execute(ParseResult parse, DesignSettings s, TextWriter stdout, TextWriter stderr)
     {
-        var input = s.Loop.Apply(parse, stderr, out var code);
+        var input = Input(parse, s, stderr, out var code);
         if (input is null)
         {
             return code;
         }
-
-        var lead = input.Lead;
-        if (parse.GetValue(s.Placement) is { } placementName)
-        {
-            if (PlacementNames.TryParse(placementName) is not { } placement)
-            {
-                stderr.WriteLine($"error: --placement '{placementName}' is not a placement. Use one of: {string.Join(", ", PlacementNames.All)}.");
-                return CliApplication.InputError;
-            }
-
-            lead = lead with { Placement = placement };
-        }
-
-        input = input with
-        {
-            CompensatorType = parse.GetValue(s.Type) ?? input.CompensatorType,
-            Lead = lead with
-            {
-                Zero = parse.GetValue(s.Zero) ?? lead.Zero,
-                Pole = parse.GetValue(s.Pole) ?? lead.Pole,
-                Ratio = parse.GetValue(s.Ratio) ?? lead.Ratio,
-                MaxStageAngleDegrees = parse.GetValue(s.MaxStageAngle) ?? lead.MaxStageAngleDegrees,
-            },
-        };
 
         var run = DesignWorkflow.Run(input);
         if (Errors.Report(run.FieldError, run.Problem, input.Plant is null, stderr) is { } failure)
@@ -58,5 +34,40 @@ internal static class DesignCommand
         var report = run.Report!;
         stdout.Write(parse.GetValue(s.Loop.Json) ? DesignJsonReport.Render(report) + Environment.NewLine : DesignTextReport.Render(report, input.Name, s.Loop.Style(parse)));
         return CliApplication.Success;
+    }
+
+    /// <summary>The case with every design flag laid over it, or null (error written) on bad input.</summary>
+    internal static Core.Cases.CaseFile? Input(ParseResult parse, DesignSettings s, TextWriter stderr, out int code)
+    {
+        var input = s.Loop.Apply(parse, stderr, out code);
+        if (input is null)
+        {
+            return null;
+        }
+
+        var lead = input.Lead;
+        if (parse.GetValue(s.Placement) is { } placementName)
+        {
+            if (PlacementNames.TryParse(placementName) is not { } placement)
+            {
+                stderr.WriteLine($"error: --placement '{placementName}' is not a placement. Use one of: {string.Join(", ", PlacementNames.All)}.");
+                code = CliApplication.InputError;
+                return null;
+            }
+
+            lead = lead with { Placement = placement };
+        }
+
+        return input with
+        {
+            CompensatorType = parse.GetValue(s.Type) ?? input.CompensatorType,
+            Lead = lead with
+            {
+                Zero = parse.GetValue(s.Zero) ?? lead.Zero,
+                Pole = parse.GetValue(s.Pole) ?? lead.Pole,
+                Ratio = parse.GetValue(s.Ratio) ?? lead.Ratio,
+                MaxStageAngleDegrees = parse.GetValue(s.MaxStageAngle) ?? lead.MaxStageAngleDegrees,
+            },
+        };
     }
 }

@@ -42,6 +42,7 @@ public static class LocusEngine
             branches[i] = [new LocusPoint(0.0, poles[i])];
         }
 
+        var breakPoints = LocusFeatures.BreakPoints(poles, zeros, g);
         var steps = 0;
         var reseeds = 0;
         if (n > 0)
@@ -93,12 +94,14 @@ public static class LocusEngine
                 else
                 {
                     // Near a break point: jump with the eigenvalue solver and assign by optimal matching.
-                    var jump = 0.02;
+                    var jump = 0.01;
                     var kJump = Math.Exp(t + jump);
+                    var before = roots;
                     roots = Reseed(poles, zeros, g, kJump, roots);
                     slope = Tangents(roots, poles, zeros, g, kJump);
                     reseeds++;
                     t += jump;
+                    InsertBreakPoints(branches, breakPoints, before, roots, kNow, kJump, scale);
                     Append(branches, kJump, roots);
                     dt = 0.01;
                 }
@@ -108,6 +111,25 @@ public static class LocusEngine
         var ends = roots.Select(r => NearestZero(r, zeros, scale)).ToImmutableArray();
         return LocusFeatures.Complete(
             branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, approximate, steps, reseeds);
+    }
+
+    /// <summary>
+    /// Where a re-seed jumped across a break point, puts the exact break point (and its gain) on the branches
+    /// that pass through it, so the drawn branches meet there instead of cutting the corner.
+    /// </summary>
+    private static void InsertBreakPoints(List<LocusPoint>[] branches, IReadOnlyList<BreakPoint> breakPoints, Complex[] before, Complex[] after, double kFrom, double kTo, double scale)
+    {
+        foreach (var b in breakPoints.Where(b => b.Gain > kFrom && b.Gain < kTo))
+        {
+            var radius = 0.05 * Math.Max(b.Point.Magnitude, 0.05 * scale);
+            for (var i = 0; i < before.Length; i++)
+            {
+                if (Complex.Abs(before[i] - b.Point) <= radius && Complex.Abs(after[i] - b.Point) <= radius)
+                {
+                    branches[i].Add(new LocusPoint(b.Gain, b.Point));
+                }
+            }
+        }
     }
 
     private static void Append(List<LocusPoint>[] branches, double k, Complex[] roots)
