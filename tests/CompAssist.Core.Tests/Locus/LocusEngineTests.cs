@@ -27,20 +27,23 @@ public class LocusEngineTests
             }
         }
 
-        // At every common gain the branches are distinct roots (no two branches coincide but at break points).
-        var count = locus.Branches[0].Length;
-        for (var k = 1; k < count; k++)
+        // At every gain all branches share, the branches are distinct roots (no two coincide but at break points;
+        // the exact break points themselves are added only to the branches that meet there).
+        var common = locus.Branches.Select(br => br.Select(p => p.Gain).ToHashSet()).Aggregate((x, y) => { x.IntersectWith(y); return x; });
+        foreach (var gain in common.Where(k => k > 0))
         {
-            var roots = locus.Branches.Select(b => b[k].Root).ToList();
+            var roots = locus.Branches.Select(br => br.First(p => p.Gain == gain).Root).ToList();
             var isBreak = locus.BreakPoints.Any(bp => roots.Any(r => Complex.Abs(r - bp.Point) < 1e-2 * Math.Max(1, bp.Point.Magnitude)));
-            if (!isBreak)
+            if (isBreak)
             {
-                for (var i = 0; i < roots.Count; i++)
+                continue;
+            }
+
+            for (var i = 0; i < roots.Count; i++)
+            {
+                for (var j = i + 1; j < roots.Count; j++)
                 {
-                    for (var j = i + 1; j < roots.Count; j++)
-                    {
-                        Assert.True(Complex.Abs(roots[i] - roots[j]) > 1e-9, $"branches {i} and {j} coincide at K={locus.Branches[0][k].Gain}");
-                    }
+                    Assert.True(Complex.Abs(roots[i] - roots[j]) > 1e-9, $"branches {i} and {j} coincide at K={gain}");
                 }
             }
         }
