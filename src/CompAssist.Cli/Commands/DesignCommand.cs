@@ -61,6 +61,13 @@ internal static class DesignCommand
         return input with
         {
             CompensatorType = parse.GetValue(s.Type) ?? input.CompensatorType,
+            Slow = input.Slow with
+            {
+                ZeroFraction = parse.GetValue(s.ZeroFraction) ?? input.Slow.ZeroFraction,
+                AngleBudgetDegrees = parse.GetValue(s.AngleBudget) ?? input.Slow.AngleBudgetDegrees,
+                Margin = parse.GetValue(s.Margin) ?? input.Slow.Margin,
+                FilterRatio = parse.GetValue(s.FilterRatio) ?? input.Slow.FilterRatio,
+            },
             Lead = lead with
             {
                 Zero = parse.GetValue(s.Zero) ?? lead.Zero,

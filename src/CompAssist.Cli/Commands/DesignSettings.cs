@@ -7,7 +7,15 @@ internal sealed class DesignSettings
 {
     public LoopSettings Loop { get; } = new();
 
-    public Option<string?> Type { get; } = new("--type") { Description = "Compensator type: lead." };
+    public Option<string?> Type { get; } = new("--type") { Description = "Compensator type: lead, lag, lead-lag, pd, pi, pid." };
+
+    public Option<double?> ZeroFraction { get; } = new("--zero-fraction") { Description = "Lag/PI zero at this fraction of the target's real part (default 0.1)." };
+
+    public Option<double?> AngleBudget { get; } = new("--angle-budget") { Description = "Largest angle in degrees the lag/PI may cost at the target (default 5)." };
+
+    public Option<double?> Margin { get; } = new("--lag-margin") { Description = "Safety factor on the lag ratio (default 1.1)." };
+
+    public Option<double?> FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at N times the zero (default: ideal derivative)." };
 
     public Option<string?> Placement { get; } = new("--placement") { Description = "Lead placement: beneath, bisector, cancel, fixed-zero, fixed-pole, ratio." };
 
@@ -22,7 +30,7 @@ internal sealed class DesignSettings
     public void AddTo(Command command)
     {
         Loop.AddTo(command);
-        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle })
+        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio })
         {
             command.Options.Add(option);
         }

@@ -38,6 +38,18 @@ internal sealed class LoopSettings
 
     public Option<double?> PeakTime { get; } = new("--peak-time") { Description = "Largest peak time, s." };
 
+    public Option<double?> Kp { get; } = new("--kp") { Description = "Smallest acceptable position constant Kp." };
+
+    public Option<double?> Kv { get; } = new("--kv") { Description = "Smallest acceptable velocity constant Kv (1/s)." };
+
+    public Option<double?> Ka { get; } = new("--ka") { Description = "Smallest acceptable acceleration constant Ka (1/s²)." };
+
+    public Option<double?> StepError { get; } = new("--step-error") { Description = "Largest steady-state error for a unit step (0…1)." };
+
+    public Option<double?> RampError { get; } = new("--ramp-error") { Description = "Largest steady-state error for a unit ramp." };
+
+    public Option<double?> ParabolaError { get; } = new("--parabola-error") { Description = "Largest steady-state error for a unit parabola." };
+
     public Option<double?> ActuatorLimit { get; } = new("--actuator-limit") { Description = "Largest actuator command |u| the hardware delivers." };
 
     public Option<double?> ReferenceStep { get; } = new("--reference-step") { Description = "Reference step size for the actuator figures (default 1)." };
@@ -51,6 +63,7 @@ internal sealed class LoopSettings
     public IEnumerable<Option> Options =>
     [
         Plant, Feedback, PositiveFeedback, PadeOrder, Target, Zeta, Wn, Overshoot, Settling, Band, PeakTime,
+        Kp, Kv, Ka, StepError, RampError, ParabolaError,
         ActuatorLimit, ReferenceStep, Vary, Json, Ascii,
     ];
 
@@ -179,6 +192,34 @@ internal sealed class LoopSettings
         if (zeta is not null || wn is not null)
         {
             result = result with { Point = null, Zeta = zeta ?? result.Zeta, NaturalFrequency = wn ?? result.NaturalFrequency };
+        }
+
+        var constants = new (double? Value, string Flag, Func<double, ErrorRequirement> Make)[]
+        {
+            (parse.GetValue(Kp), "--kp", v => new ErrorRequirement(ErrorConstantKind.Position, v)),
+            (parse.GetValue(Kv), "--kv", v => new ErrorRequirement(ErrorConstantKind.Velocity, v)),
+            (parse.GetValue(Ka), "--ka", v => new ErrorRequirement(ErrorConstantKind.Acceleration, v)),
+            (parse.GetValue(StepError), "--step-error", ErrorRequirement.FromStepError),
+            (parse.GetValue(RampError), "--ramp-error", ErrorRequirement.FromRampError),
+            (parse.GetValue(ParabolaError), "--parabola-error", ErrorRequirement.FromParabolaError),
+        };
+        var given = constants.Where(c => c.Value is not null).ToList();
+        if (given.Count > 1)
+        {
+            stderr.WriteLine($"error: {string.Join(" and ", given.Select(g => g.Flag))} both set a steady-state requirement. Give one.");
+            return null;
+        }
+
+        if (given.Count == 1)
+        {
+            var (value, flag, make) = given[0];
+            if (!(value > 0) || (flag == "--step-error" && value >= 1))
+            {
+                stderr.WriteLine($"error: {flag} {value} is out of range. Constants must be positive; a step error must be between 0 and 1.");
+                return null;
+            }
+
+            result = result with { Constant = make(value!.Value) };
         }
 
         if (parse.GetValue(Target) is { } targetText)

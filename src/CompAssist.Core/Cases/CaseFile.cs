@@ -43,6 +43,9 @@ public sealed record CaseFile
     /// <summary>Lead choices.</summary>
     public LeadOptions Lead { get; init; } = new();
 
+    /// <summary>Lag, PI and PID choices: slow-zero fraction, angle budget, margin, derivative filter.</summary>
+    public SlowPoleOptions Slow { get; init; } = new();
+
     /// <summary>Proof settings: reference step size, actuator limit, simulation length.</summary>
     public CheckOptions Check { get; init; } = new();
 

@@ -30,6 +30,7 @@ namespace CompAssist.Core.Cases;
 /// zeta = 0.5                       # with natural_frequency
 /// natural_frequency = 4.0          # rad/s
 /// target = [-2.0, 3.464]           # [re, im], overrides the region corner
+/// kv = 20                          # or kp / ka, or step_error / ramp_error / parabola_error (one of them)
 /// [compensator]
 /// type = "lead"
 /// placement = "bisector"           # beneath | bisector | cancel | fixed-zero | fixed-pole | ratio
@@ -37,6 +38,10 @@ namespace CompAssist.Core.Cases;
 /// pole = -20.0                     # fixed-pole location
 /// ratio = 10.0                     # pole/zero ratio
 /// max_stage_angle_deg = 60         # per-stage lead limit
+/// zero_fraction = 0.1              # lag/PI zero at this fraction of the target's real part
+/// angle_budget_deg = 5             # largest angle the lag/PI may cost at the target
+/// margin = 1.1                     # safety factor on the lag ratio
+/// filter_ratio = 10                # PD/PID derivative filter pole at N times the zero (absent: ideal)
 /// [check]
 /// reference_step = 1.0             # size of the reference step for the actuator figures
 /// actuator_limit = 12.0            # largest |u| the actuator delivers
@@ -50,8 +55,8 @@ public static partial class CaseFileReader
     {
         [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator", "check"],
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
-        ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target"],
-        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg"],
+        ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
+        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio"],
         ["check"] = ["reference_step", "actuator_limit", "vary"],
     };
 
@@ -176,6 +181,34 @@ public static partial class CaseFileReader
                 }
             }
 
+            var constants = new (string Key, Func<double, ErrorRequirement> Make)[]
+            {
+                ("kp", v => new ErrorRequirement(ErrorConstantKind.Position, v)),
+                ("kv", v => new ErrorRequirement(ErrorConstantKind.Velocity, v)),
+                ("ka", v => new ErrorRequirement(ErrorConstantKind.Acceleration, v)),
+                ("step_error", ErrorRequirement.FromStepError),
+                ("ramp_error", ErrorRequirement.FromRampError),
+                ("parabola_error", ErrorRequirement.FromParabolaError),
+            };
+            ErrorRequirement? constant = null;
+            foreach (var (key, make) in constants)
+            {
+                if (Number(req, "requirements", key) is { } v)
+                {
+                    if (constant is not null)
+                    {
+                        return Fail("[requirements] gives more than one steady-state requirement", "Keep one of kp, kv, ka, step_error, ramp_error, parabola_error.");
+                    }
+
+                    if (!(v > 0) || (key == "step_error" && v >= 1))
+                    {
+                        return Fail($"[requirements] {key} = {v} is out of range", "Constants must be positive; a step error must be between 0 and 1.");
+                    }
+
+                    constant = make(v);
+                }
+            }
+
             var placementText = String(comp, "compensator", "placement") ?? "bisector";
             var placement = PlacementNames.TryParse(placementText);
             if (placement is null)
@@ -233,6 +266,7 @@ public static partial class CaseFileReader
                     Zeta = Number(req, "requirements", "zeta"),
                     NaturalFrequency = Number(req, "requirements", "natural_frequency"),
                     Point = target,
+                    Constant = constant,
                 },
                 CompensatorType = String(comp, "compensator", "type") ?? "lead",
                 Lead = new LeadOptions
@@ -242,6 +276,13 @@ public static partial class CaseFileReader
                     Pole = Number(comp, "compensator", "pole"),
                     Ratio = Number(comp, "compensator", "ratio"),
                     MaxStageAngleDegrees = Number(comp, "compensator", "max_stage_angle_deg") ?? LeadOptions.DefaultMaxStageAngleDegrees,
+                },
+                Slow = new SlowPoleOptions
+                {
+                    ZeroFraction = Number(comp, "compensator", "zero_fraction") ?? 0.1,
+                    AngleBudgetDegrees = Number(comp, "compensator", "angle_budget_deg") ?? 5.0,
+                    Margin = Number(comp, "compensator", "margin") ?? 1.1,
+                    FilterRatio = Number(comp, "compensator", "filter_ratio"),
                 },
                 Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit },
                 Variations = variations.ToImmutable(),

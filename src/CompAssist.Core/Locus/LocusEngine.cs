@@ -52,7 +52,18 @@ public static class LocusEngine
             Complex[] start;
             while (true)
             {
-                start = Reseed(poles, zeros, g, k, roots);
+                try
+                {
+                    start = Reseed(poles, zeros, g, k, roots);
+                }
+                catch (RootFindingException) when (k < kRef * 1e3)
+                {
+                    // Right next to a multiple pole the roots are a tight cluster that cannot be verified yet;
+                    // start a decade further out, where they have separated.
+                    k *= 10;
+                    continue;
+                }
+
                 reseeds++;
                 var moved = Enumerable.Range(0, n).Max(i => Complex.Abs(start[i] - roots[i]) / Math.Max(Complex.Abs(roots[i]), 0.05 * scale));
                 if (moved > 1e-4 || k > kRef * 1e3)

@@ -32,7 +32,23 @@ public static class RootFinder
             throw new ArgumentException("The zero polynomial has no finite root set.", nameof(polynomial));
         }
 
-        return Find(new ExpandedRootFunction(polynomial));
+        // Exact roots at the origin (vanishing low coefficients) are taken out exactly: a multiple root at 0
+        // cannot be verified by its residual, and there is nothing to polish.
+        var c = polynomial.Ascending;
+        var atOrigin = 0;
+        while (c[atOrigin] == 0.0)
+        {
+            atOrigin++;
+        }
+
+        if (atOrigin == 0)
+        {
+            return Find(new ExpandedRootFunction(polynomial));
+        }
+
+        var rest = Polynomial.FromAscending(c.Skip(atOrigin));
+        var report = rest.Degree == 0 ? new RootReport([], 0.0, 0.0) : Find(new ExpandedRootFunction(rest));
+        return report with { Roots = ConjugateSymmetry.Canonical([.. report.Roots, .. Enumerable.Repeat(Complex.Zero, atOrigin)]) };
     }
 
     /// <summary>Roots of a function given in its accurate form.</summary>

@@ -15,6 +15,14 @@ namespace CompAssist.Core.Proof;
 /// <param name="Ka">Acceleration constant (0 for type ≤ 1, infinite for type ≥ 3).</param>
 public sealed record ErrorConstants(int SystemType, double Kp, double Kv, double Ka)
 {
+    /// <summary>The constant a requirement is about.</summary>
+    public double ValueOf(Targets.ErrorConstantKind kind) => kind switch
+    {
+        Targets.ErrorConstantKind.Position => Kp,
+        Targets.ErrorConstantKind.Velocity => Kv,
+        _ => Ka,
+    };
+
     /// <summary>Computes the constants of the compensated loop (delay contributes e⁰ = 1).</summary>
     public static ErrorConstants Of(Loop loop, TransferFunction compensator)
     {

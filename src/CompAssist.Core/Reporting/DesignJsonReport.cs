@@ -29,7 +29,7 @@ public static class DesignJsonReport
     private static void Write(Utf8JsonWriter w, DesignReport report)
     {
         var design = report.Design;
-        var target = report.Selection.Target;
+        var target = design.Target;
         var proof = report.Proof;
         var c = design.Compensator;
         w.WriteStartObject();
@@ -75,8 +75,11 @@ public static class DesignJsonReport
         w.WriteEndObject();
 
         w.WriteStartObject("compensator");
-        w.WriteString("type", "lead");
-        w.WriteString("placement", PlacementNames.NameOf(design.Placement));
+        w.WriteString("type", KindName(c.Kind));
+        if (design.Placement is { } placement)
+        {
+            w.WriteString("placement", PlacementNames.NameOf(placement));
+        }
         Number(w, "gain", c.Gain);
         w.WriteString("gainForm", "factored: C(s) = gain · Π(s − zeros) / Π(s − poles)");
         w.WriteStartObject("gains");
@@ -94,9 +97,27 @@ public static class DesignJsonReport
         foreach (var st in c.Stages)
         {
             w.WriteStartObject();
-            w.WriteString("kind", "lead");
-            Number(w, "zero", st.Zero);
-            Number(w, "pole", st.Pole);
+            w.WriteString("kind", KindName(st.Kind));
+            w.WriteStartArray("zeros");
+            if (st.Zero is { } z)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("re", z);
+                w.WriteNumber("im", 0);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteStartArray("poles");
+            if (st.Pole is { } stagePole)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("re", stagePole);
+                w.WriteNumber("im", 0);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
             Number(w, "angleDeg", st.AngleAtTargetDegrees);
             w.WriteEndObject();
         }
@@ -109,7 +130,66 @@ public static class DesignJsonReport
         }
 
         w.WriteEndArray();
+
+        if (c.Pid is { } pid)
+        {
+            w.WriteStartObject("pid");
+            w.WriteStartObject("parallel");
+            w.WriteString("form", "Kp + Ki/s + Kd*s/(Tf*s + 1)");
+            Number(w, "kp", pid.Kp);
+            Number(w, "ki", pid.Ki);
+            Number(w, "kd", pid.Kd);
+            Number(w, "tf", pid.Tf);
+            w.WriteEndObject();
+            w.WriteStartObject("standard");
+            w.WriteString("form", "Kc*(1 + 1/(Ti*s) + Td*s/(1 + Td*s/N))");
+            Number(w, "kc", pid.Kc);
+            Number(w, "ti", pid.Ti);
+            Number(w, "td", pid.Td);
+            Number(w, "n", pid.N);
+            w.WriteEndObject();
+            if (pid.SeriesKc is { } sk)
+            {
+                w.WriteStartObject("series");
+                w.WriteString("form", "Kc*(1 + 1/(Ti*s))*(1 + Td*s)");
+                Number(w, "kc", sk);
+                Number(w, "ti", pid.SeriesTi!.Value);
+                Number(w, "td", pid.SeriesTd!.Value);
+                w.WriteEndObject();
+            }
+            else
+            {
+                w.WriteNull("series");
+            }
+
+            w.WriteEndObject();
+        }
+
         w.WriteEndObject();
+
+        var constants = report.Check.ErrorConstants;
+        w.WriteStartObject("errorConstants");
+        w.WriteNumber("type", constants.SystemType);
+        Number(w, "kp", constants.Kp);
+        Number(w, "kv", constants.Kv);
+        Number(w, "ka", constants.Ka);
+        if (design.SteadyState is { } steady)
+        {
+            w.WriteString("required", steady.Requirement.ToString());
+            Number(w, "before", steady.Before);
+            Number(w, "after", steady.After);
+            w.WriteBoolean("met", steady.Met);
+        }
+
+        w.WriteEndObject();
+
+        if (design.RequestedTarget is { } requested)
+        {
+            w.WriteStartObject("requestedTarget");
+            Number(w, "re", requested.Point.Real);
+            Number(w, "im", requested.Point.Imaginary);
+            w.WriteEndObject();
+        }
 
         w.WriteStartObject("closedLoop");
         Numbers(w, "characteristic", proof.CharacteristicDescending);
@@ -152,6 +232,13 @@ public static class DesignJsonReport
     }
 
     private static void Number(Utf8JsonWriter w, string name, double x) => JsonNumbers.Write(w, name, x);
+
+    /// <summary>The command-line name of a compensator kind.</summary>
+    public static string KindName(CompensatorKind kind) => kind switch
+    {
+        CompensatorKind.LeadLag => "lead-lag",
+        _ => kind.ToString().ToLowerInvariant(),
+    };
 
     private static void Numbers(Utf8JsonWriter w, string name, IEnumerable<double> xs)
     {

@@ -19,10 +19,12 @@ public static class DesignTextReport
         var sb = new StringBuilder();
         var design = report.Design;
         var loop = design.Loop;
-        var target = report.Selection.Target;
+        var requested = report.Selection.Target;
+        var target = design.Target;
         var proof = report.Proof;
+        var kindName = DesignJsonReport.KindName(design.Compensator.Kind);
 
-        sb.AppendLine(title.Length > 0 ? $"CompAssist lead design — {title}" : "CompAssist lead design");
+        sb.AppendLine(title.Length > 0 ? $"CompAssist {kindName} design — {title}" : $"CompAssist {kindName} design");
         sb.AppendLine();
         sb.AppendLine("Loop");
         sb.AppendLine($"  plant     G(s) = {loop.Plant}");
@@ -30,21 +32,25 @@ public static class DesignTextReport
         sb.AppendLine();
 
         sb.AppendLine("Target (dominant closed-loop pole)");
-        sb.AppendLine($"  s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j");
-        sb.AppendLine($"  σ = {N(target.Sigma)} 1/s   ωd = {N(target.DampedFrequency)} rad/s   ζ = {N(target.Zeta, 4)}   ωn = {N(target.NaturalFrequency)} rad/s");
+        sb.AppendLine($"  s* = {N(requested.Point.Real)} ± {N(requested.DampedFrequency)}j");
+        sb.AppendLine($"  σ = {N(requested.Sigma)} 1/s   ωd = {N(requested.DampedFrequency)} rad/s   ζ = {N(requested.Zeta, 4)}   ωn = {N(requested.NaturalFrequency)} rad/s");
+        if (target.Point != requested.Point)
+        {
+            sb.AppendLine($"  placed at s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j (same ζ; see Synthesis)");
+        }
         sb.AppendLine($"  chosen as: {report.Selection.Source}");
         foreach (var c in report.Selection.Constraints)
         {
             TextWrap.AppendTo(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
         }
 
-        var p = target.Predict();
+        var p = requested.Predict();
         sb.AppendLine("  second-order predictions (not measurements):");
         sb.AppendLine($"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
         sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ)");
         sb.AppendLine();
 
-        sb.AppendLine($"Synthesis (lead, placement: {PlacementNames.NameOf(design.Placement)})");
+        sb.AppendLine(design.Placement is { } placement ? $"Synthesis ({kindName}, lead placement: {PlacementNames.NameOf(placement)})" : $"Synthesis ({kindName})");
         foreach (var note in design.Notes)
         {
             TextWrap.AppendTo(sb, note, "  ", "    ");
@@ -53,14 +59,30 @@ public static class DesignTextReport
         var i = 1;
         foreach (var st in design.Compensator.Stages)
         {
-            TextWrap.AppendTo(sb, $"stage {i++}: zero {N(st.Zero)}   pole {N(st.Pole)}   pole/zero ratio {N(st.PoleZeroRatio, 4)}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*", "  ", "    ");
+            var ratio = double.IsNaN(st.PoleZeroRatio) ? string.Empty : $"   pole/zero ratio {N(st.PoleZeroRatio, 4)}";
+            TextWrap.AppendTo(sb, $"stage {i++} ({DesignJsonReport.KindName(st.Kind)}): zero {(st.Zero is { } z ? N(z) : "none")}   pole {(st.Pole is { } stagePole ? N(stagePole) : "none")}{ratio}   adds {N(st.AngleAtTargetDegrees, 5)}° at s*", "  ", "    ");
         }
 
         var c0 = design.Compensator;
         sb.AppendLine($"  C(s) = {c0.TransferFunction}");
-        sb.AppendLine($"  gains: factored K = {N(c0.Gain)}  (multiplies Π(s−z)/Π(s−p); equals the");
-        sb.AppendLine($"         high-frequency gain)    DC gain C(0) = {N(c0.DcGain)}");
+        sb.AppendLine($"  gains: factored K = {N(c0.Gain)}  (multiplies Π(s−z)/Π(s−p){(c0.TransferFunction.RelativeDegree == 0 ? "; equals the" : ")")}");
+        sb.AppendLine(c0.TransferFunction.RelativeDegree == 0
+            ? $"         high-frequency gain)    DC gain C(0) = {N(c0.DcGain)}"
+            : $"         DC gain C(0) = {N(c0.DcGain)}");
         sb.AppendLine($"  magnitude condition at s*: |C·G·H| = 1 with K = {N(c0.Gain)}");
+        if (c0.Pid is { } pid)
+        {
+            sb.AppendLine($"  parallel form  Kp + Ki/s + Kd·s/(Tf·s + 1):  Kp = {N(pid.Kp)}, Ki = {N(pid.Ki)} 1/s, Kd = {N(pid.Kd)} s, Tf = {N(pid.Tf)} s");
+            sb.AppendLine($"  standard form  Kc(1 + 1/(Ti·s) + Td·s/(1 + Td·s/N)):  Kc = {N(pid.Kc)}, Ti = {N(pid.Ti)} s, Td = {N(pid.Td)} s, N = {N(pid.N)}");
+            sb.AppendLine(pid.SeriesKc is { } sk
+                ? $"  series form    Kc′(1 + 1/(Ti′·s))(1 + Td′·s):  Kc′ = {N(sk)}, Ti′ = {N(pid.SeriesTi!.Value)} s, Td′ = {N(pid.SeriesTd!.Value)} s"
+                : "  series form    not available (a derivative filter or complex zeros)");
+        }
+
+        if (design.SteadyState is { } steady)
+        {
+            sb.AppendLine($"  steady state: {steady.Requirement} required; {steady.Requirement.Symbol} = {N(steady.Before)} before, {N(steady.After)} after: {(steady.Met ? "met" : "NOT MET")}");
+        }
         sb.AppendLine();
 
         sb.AppendLine("Proof (closed loop, all roots by root finding)");

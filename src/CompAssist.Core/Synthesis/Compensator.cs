@@ -9,8 +9,9 @@ namespace CompAssist.Core.Synthesis;
 /// </summary>
 public sealed class Compensator
 {
-    private Compensator(CompensatorKind kind, double gain, ImmutableArray<CompensatorStage> stages, TransferFunction transferFunction)
+    private Compensator(CompensatorKind kind, double gain, ImmutableArray<CompensatorStage> stages, TransferFunction transferFunction, PidForms? pid)
     {
+        Pid = pid;
         Kind = kind;
         Gain = gain;
         Stages = stages;
@@ -20,11 +21,14 @@ public sealed class Compensator
     /// <summary>The family of the whole compensator.</summary>
     public CompensatorKind Kind { get; }
 
-    /// <summary>Factored gain K (multiplies Π(s − z)/Π(s − p)); equals the high-frequency gain here.</summary>
+    /// <summary>Factored gain K (multiplies Π(s − z)/Π(s − p)); the high-frequency gain when C is biproper.</summary>
     public double Gain { get; }
 
     /// <summary>The stages, in cascade order.</summary>
     public ImmutableArray<CompensatorStage> Stages { get; }
+
+    /// <summary>Every gain form of a PI, PD or PID compensator; null for the others.</summary>
+    public PidForms? Pid { get; }
 
     /// <summary>The whole compensator as a transfer function.</summary>
     public TransferFunction TransferFunction { get; }
@@ -39,6 +43,14 @@ public sealed class Compensator
     /// <exception cref="ArgumentException">The gain is zero or not finite, or there are no stages.</exception>
     public static Compensator FromStages(CompensatorKind kind, double gain, IEnumerable<CompensatorStage> stages)
     {
+        var unformed = Build(kind, gain, stages, null);
+        return kind is CompensatorKind.PD or CompensatorKind.PI or CompensatorKind.PID
+            ? Build(kind, gain, unformed.Stages, PidForms.FromTransferFunction(unformed.TransferFunction))
+            : unformed;
+    }
+
+    private static Compensator Build(CompensatorKind kind, double gain, IEnumerable<CompensatorStage> stages, PidForms? pid)
+    {
         ArgumentNullException.ThrowIfNull(stages);
         var list = stages.ToImmutableArray();
         if (list.IsEmpty)
@@ -48,8 +60,8 @@ public sealed class Compensator
 
         var tf = TransferFunction.FromFactors(
             gain,
-            list.Select(st => new Complex(st.Zero, 0.0)),
-            list.Select(st => new Complex(st.Pole, 0.0)));
-        return new Compensator(kind, gain, list, tf);
+            list.Where(st => st.Zero is not null).Select(st => new Complex(st.Zero!.Value, 0.0)),
+            list.Where(st => st.Pole is not null).Select(st => new Complex(st.Pole!.Value, 0.0)));
+        return new Compensator(kind, gain, list, tf, pid);
     }
 }

@@ -26,6 +26,9 @@ public sealed record Requirements
     /// <summary>Natural frequency given directly.</summary>
     public double? NaturalFrequency { get; init; }
 
+    /// <summary>A steady-state requirement (smallest error constant), for lag, lead-lag, PI and PID designs.</summary>
+    public ErrorRequirement? Constant { get; init; }
+
     /// <summary>An explicit target point (overrides the region corner; the region is still checked).</summary>
     public Complex? Point { get; init; }
 }

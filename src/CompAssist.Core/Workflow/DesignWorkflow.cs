@@ -18,7 +18,19 @@ namespace CompAssist.Core.Workflow;
 public static class DesignWorkflow
 {
     /// <summary>Compensator families this build can synthesize.</summary>
-    public static IReadOnlyList<string> SupportedTypes { get; } = ["lead"];
+    public static IReadOnlyList<string> SupportedTypes { get; } = ["lead", "lag", "lead-lag", "pd", "pi", "pid"];
+
+    /// <summary>The kind for a command-line type name, or null.</summary>
+    public static CompensatorKind? KindOf(string name) => name.ToLowerInvariant() switch
+    {
+        "lead" => CompensatorKind.Lead,
+        "lag" => CompensatorKind.Lag,
+        "lead-lag" => CompensatorKind.LeadLag,
+        "pd" => CompensatorKind.PD,
+        "pi" => CompensatorKind.PI,
+        "pid" => CompensatorKind.PID,
+        _ => null,
+    };
 
     /// <summary>Runs the design a case describes.</summary>
     public static DesignRun Run(CaseFile input)
@@ -41,14 +53,14 @@ public static class DesignWorkflow
         }
 
         var loop = loopResult.Loop!;
-        if (!SupportedTypes.Contains(input.CompensatorType))
+        if (KindOf(input.CompensatorType) is not { } kind)
         {
             return DesignRun.Failed(new Problem(
                 $"Compensator type '{input.CompensatorType}' is not available in this version",
                 $"Use one of: {string.Join(", ", SupportedTypes)}."));
         }
 
-        var optionsProblem = CheckLeadOptions(input.Lead);
+        var optionsProblem = kind is CompensatorKind.Lead or CompensatorKind.LeadLag ? CheckLeadOptions(input.Lead) : null;
         if (optionsProblem is not null)
         {
             return DesignRun.Failed(optionsProblem);
@@ -60,7 +72,7 @@ public static class DesignWorkflow
             return DesignRun.Failed(selection.Problem);
         }
 
-        var design = LeadDesigner.Design(loop, selection.Value.Target, input.Lead);
+        var design = Synthesizer.Design(loop, selection.Value.Target, kind, input.Lead, input.Slow, input.Requirements.Constant);
         if (!design.IsSuccess)
         {
             return DesignRun.Failed(design.Problem);
@@ -69,8 +81,8 @@ public static class DesignWorkflow
         try
         {
             var compensator = design.Value.Compensator.TransferFunction;
-            var proof = LoopProver.Prove(loop, compensator, selection.Value.Target);
-            var check = LoopCheck.Run(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), input.Check, input.Requirements, selection.Value.Target);
+            var proof = LoopProver.Prove(loop, compensator, design.Value.Target);
+            var check = LoopCheck.Run(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), input.Check, input.Requirements, design.Value.Target);
             RobustnessReport? robustness = null;
             if (!input.Variations.IsEmpty)
             {
@@ -89,7 +101,7 @@ public static class DesignWorkflow
         catch (RootFindingException e)
         {
             return DesignRun.Failed(new Problem(
-                "The closed-loop roots could not be verified: " + e.Message,
+                "The closed-loop roots could not be verified: " + e.Message.TrimEnd('.'),
                 "The loop is numerically ill-conditioned; enter the plant in factored form or reduce its order."));
         }
     }

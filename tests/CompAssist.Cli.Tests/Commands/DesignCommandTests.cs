@@ -95,7 +95,7 @@ public class DesignCommandTests
         { ["design", "--plant", "1/s^2", "--target", "abc"], 2, "error: --target 'abc' is not a point" },
         { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "middle"], 2, "error: --placement 'middle' is not a placement" },
         { ["design", "--plant", "1/s^2", "--overshoot", "10", "--settling", "2", "--band", "3"], 2, "error: --band 3 is not supported" },
-        { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--type", "pid"], 3, "error: Compensator type 'pid' is not available" },
+        { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--type", "notch"], 3, "error: Compensator type 'notch' is not available" },
         { ["design", "--plant", "1/s^2", "--zeta", "0.5"], 3, "error: ζ and ωn must be given together" },
         { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "fixed-zero"], 3, "error: The fixed-zero placement needs a zero location" },
         { ["design", "/nonexistent/case.toml"], 2, "error: /nonexistent/case.toml: Cannot read the case file" },

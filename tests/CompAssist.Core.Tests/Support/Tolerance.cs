@@ -15,6 +15,13 @@ internal static class Tolerance
             $"{what} expected {expected:R}, got {actual:R} (error {error:G3} > allowed {allowed:G3})");
     }
 
+    /// <summary>As <see cref="Close(double,double,double,double,string)"/> for an optional value, which must be present.</summary>
+    public static void Close(double? expected, double? actual, double relative = 1e-12, double absolute = 0.0, string what = "")
+    {
+        Assert.True(expected.HasValue && actual.HasValue, $"{what} expected {expected}, got {actual}");
+        Close(expected!.Value, actual!.Value, relative, absolute, what);
+    }
+
     /// <summary>Complex version of <see cref="Close(double,double,double,double,string)"/>, relative to |expected|.</summary>
     public static void Close(Complex expected, Complex actual, double relative = 1e-12, double absolute = 0.0, string what = "")
     {

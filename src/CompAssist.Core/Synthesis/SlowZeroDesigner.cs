@@ -1,0 +1,146 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Numerics;
+using CompAssist.Core.Analysis;
+using CompAssist.Core.Common;
+using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Targets;
+
+namespace CompAssist.Core.Synthesis;
+
+/// <summary>
+/// The slow zero of a lag (zero z and pole z/β near the origin) or a PI (zero z and an integrator), added to an
+/// existing compensator shape. The zero sits at a fraction of the target's real part, moved closer to the
+/// origin if its angle at the target would exceed the budget; the target then slides along its ζ ray onto the
+/// compensated locus and the gain is re-solved by the magnitude condition.
+/// </summary>
+public static class SlowZeroDesigner
+{
+    /// <summary>The result: the stages, the gain, the target where the gain was solved and what was done.</summary>
+    public sealed record Result(ImmutableArray<CompensatorStage> Stages, double Gain, TargetPole Target, ImmutableArray<string> Notes, SteadyStateResult? SteadyState);
+
+    /// <summary>Adds a lag (<paramref name="integrator"/> false) or a PI zero and integrator (true) to <paramref name="baseStages"/>.</summary>
+    public static Outcome<Result> Add(Loop loop, ImmutableArray<CompensatorStage> baseStages, TargetPole target, ErrorRequirement? requirement, SlowPoleOptions options, bool integrator)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        ArgumentNullException.ThrowIfNull(target);
+        ArgumentNullException.ThrowIfNull(options);
+        var what = integrator ? "PI" : "lag";
+        if (!(options.ZeroFraction > 0) || options.ZeroFraction >= 1)
+        {
+            return Outcome<Result>.Refused(
+                $"A {what} zero at {F(options.ZeroFraction)} of the target's real part would sit {(options.ZeroFraction >= 1 ? "at or right of the target" : "nowhere useful")}",
+                "Give a zero fraction between 0 and 1 (about 0.1 is usual).");
+        }
+
+        if (!(options.AngleBudgetDegrees > 0 && options.AngleBudgetDegrees < 30))
+        {
+            return Outcome<Result>.Refused($"An angle budget of {F(options.AngleBudgetDegrees)}° is out of range", "Give a few degrees (default 5°).");
+        }
+
+        var baseShape = Shape(baseStages);
+        var s = target.Point;
+        var sigma = target.Sigma;
+        var baseGain = PointAnalysis.At(loop, s, baseShape).Gain;
+        var before = requirement is null ? double.NaN : ErrorConstants.Of(loop, baseShape.Scaled(baseGain)).ValueOf(requirement.Kind);
+        var notes = ImmutableArray.CreateBuilder<string>();
+        double beta;
+        if (integrator)
+        {
+            beta = double.PositiveInfinity;
+        }
+        else
+        {
+            if (requirement is null)
+            {
+                return Outcome<Result>.Refused("A lag needs a steady-state requirement to size it", "Give --kp, --kv or --ka (or a steady-state error).");
+            }
+
+            if (before == 0)
+            {
+                return Outcome<Result>.Refused(
+                    $"{requirement.Symbol} is 0 for this loop (type {ErrorConstants.Of(loop, baseShape).SystemType}); a lag scales an error constant but cannot raise the system type",
+                    "Use a PI (or PID) to add an integrator.");
+            }
+
+            if (double.IsPositiveInfinity(before))
+            {
+                return Outcome<Result>.Refused($"{requirement.Symbol} is already infinite for this loop", "No lag is needed for this requirement.");
+            }
+
+            if (before >= requirement.Value)
+            {
+                return Outcome<Result>.Refused(
+                    $"{requirement.Symbol} is already {F(before)} ≥ {F(requirement.Value)} without a lag",
+                    "No lag is needed: use the design without it.");
+            }
+
+            beta = options.Margin * requirement.Value / before;
+        }
+
+        var fraction = options.ZeroFraction;
+        double Cost(double f) => Angles.ToDegrees(LeadDesigner.AngleSeen(s, -f * sigma) - LeadDesigner.AngleSeen(s, integrator ? 0.0 : -f * sigma / beta));
+        if (Math.Abs(Cost(fraction)) > options.AngleBudgetDegrees)
+        {
+            double lo = 0, hi = fraction;
+            for (var i = 0; i < 100; i++)
+            {
+                var mid = 0.5 * (lo + hi);
+                if (Math.Abs(Cost(mid)) > 0.9 * options.AngleBudgetDegrees)
+                {
+                    hi = mid;
+                }
+                else
+                {
+                    lo = mid;
+                }
+            }
+
+            notes.Add($"A zero at {F(fraction)}·σ would cost {F(Cost(fraction))}° at the target, beyond the {F(options.AngleBudgetDegrees)}° budget: moved to {F(lo)}·σ.");
+            fraction = lo;
+        }
+
+        var zero = -fraction * sigma;
+        for (var attempt = 0; attempt < 8; attempt++)
+        {
+            var pole = integrator ? 0.0 : zero / beta;
+            var slow = new CompensatorStage(integrator ? CompensatorKind.PI : CompensatorKind.Lag, zero, pole, Cost(fraction));
+            var shape = Shape(baseStages.Add(slow));
+            var moved = DampingRay.Solve(loop, shape, target);
+            if (!moved.IsSuccess)
+            {
+                return Outcome<Result>.Refused(moved.Problem);
+            }
+
+            var gain = PointAnalysis.At(loop, moved.Value.Point, shape).Gain;
+            var after = requirement is null ? double.NaN : ErrorConstants.Of(loop, shape.Scaled(gain)).ValueOf(requirement.Kind);
+            if (requirement is null || after >= requirement.Value || integrator || attempt == 7)
+            {
+                var movedBy = Complex.Abs(moved.Value.Point - s) / s.Magnitude;
+                notes.Add(integrator
+                    ? $"PI zero at {F(zero)} ({F(fraction)}·σ) with the integrator; it costs {F(Cost(fraction))}° at the target."
+                    : $"Lag zero at {F(zero)} ({F(fraction)}·σ), pole at {F(pole)}: ratio {F(zero / pole)} (the required {F(requirement!.Value / before)} with a margin); it costs {F(Cost(fraction))}° at the target.");
+                if (movedBy > 1e-9)
+                {
+                    notes.Add($"The target slid {F(100 * movedBy)} % along its ζ ray onto the compensated locus, to {TransferFunctionFormatter.Complex(moved.Value.Point, 5)}; the gain was re-solved there.");
+                }
+
+                notes.Add($"The slow zero leaves a slow closed-loop pole near {F(zero)} (time constant about {F(1 / Math.Max(Math.Abs(zero), 1e-300))} s): a small, slow tail in the step that the simulation shows.");
+                var steady = requirement is null ? null : new SteadyStateResult(requirement, before, after);
+                return Outcome<Result>.Success(new Result(baseStages.Add(slow with { AngleAtTargetDegrees = Angles.ToDegrees(LeadDesigner.AngleSeen(moved.Value.Point, zero) - LeadDesigner.AngleSeen(moved.Value.Point, pole)) }), gain, moved.Value, notes.ToImmutable(), steady));
+            }
+
+            // The re-solved gain came out lower than assumed: grow the ratio by the shortfall and try again.
+            beta *= 1.02 * requirement.Value / after;
+        }
+
+        throw new InvalidOperationException("unreachable");
+    }
+
+    /// <summary>The unit-gain transfer function of a list of stages.</summary>
+    public static TransferFunction Shape(ImmutableArray<CompensatorStage> stages) =>
+        stages.IsEmpty ? TransferFunction.Unity : Compensator.FromStages(CompensatorKind.Lead, 1.0, stages).TransferFunction;
+
+    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+}
