@@ -66,4 +66,56 @@ public static class DampingRay
             "No point on the target's constant-ζ ray near it lies on the compensated locus",
             "The lag or PI costs too much angle here: lower its zero fraction or its angle budget.");
     }
+
+    /// <summary>
+    /// Where the constant-ζ ray first meets the uncompensated locus of G·H (the smallest such |s|): the
+    /// natural target for a lag or PI when only the damping is specified.
+    /// </summary>
+    public static Outcome<TargetPole> OnLocus(Loop loop, double zeta)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        if (!(zeta > 0 && zeta < 1))
+        {
+            return Outcome<TargetPole>.Refused($"ζ = {zeta} is outside 0 < ζ < 1", "Give an overshoot between 0 and 100 %.");
+        }
+
+        var direction = Complex.FromPolarCoordinates(1.0, Math.PI - Math.Acos(zeta));
+        var corners = loop.PlantTimesFeedback.Poles.Concat(loop.PlantTimesFeedback.Zeros).Select(r => r.Magnitude).Where(m => m > 0).DefaultIfEmpty(1.0).ToList();
+        var lo = Math.Log(corners.Min() * 1e-3);
+        var hi = Math.Log(corners.Max() * 1e3);
+        double Residual(double r) => PointAnalysis.At(loop, direction * r, TransferFunction.Unity).AngleResidualDegrees;
+        const int steps = 600;
+        var previousR = Math.Exp(lo);
+        var previous = Residual(previousR);
+        for (var i = 1; i <= steps; i++)
+        {
+            var r = Math.Exp(lo + ((hi - lo) * i / steps));
+            var value = Residual(r);
+            if (Math.Sign(value) != Math.Sign(previous) && Math.Abs(value - previous) < 90)
+            {
+                double a = previousR, b = r, fa = previous;
+                for (var k = 0; k < 200 && b - a > 1e-15 * b; k++)
+                {
+                    var m = 0.5 * (a + b);
+                    var fm = Residual(m);
+                    if (Math.Sign(fm) == Math.Sign(fa))
+                    {
+                        (a, fa) = (m, fm);
+                    }
+                    else
+                    {
+                        b = m;
+                    }
+                }
+
+                return Outcome<TargetPole>.Success(TargetPole.At(direction * (0.5 * (a + b))));
+            }
+
+            (previousR, previous) = (r, value);
+        }
+
+        return Outcome<TargetPole>.Refused(
+            $"The uncompensated locus never crosses the ζ = {zeta:G3} ray",
+            "A lag or PI cannot reach this damping; use a lead-lag or PID, or relax the overshoot.");
+    }
 }

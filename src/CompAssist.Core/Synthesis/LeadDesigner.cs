@@ -295,8 +295,7 @@ public static class LeadDesigner
         const int steps = 400;
         var lo = center - 18.0;
         var hi = center + 18.0;
-        var best = double.NaN;
-        var bestDistance = double.PositiveInfinity;
+        var solutions = new List<double>();
         var maxAngle = double.NegativeInfinity;
         var previousU = lo;
         var previous = Excess(lo);
@@ -307,20 +306,18 @@ public static class LeadDesigner
             maxAngle = Math.Max(maxAngle, value + phi);
             if (Math.Sign(value) != Math.Sign(previous) && value != previous)
             {
-                var root = Bisect(Excess, previousU, u);
-                var z = -Math.Exp(root);
-                var distance = Math.Abs(z - s.Real);
-                if (distance < bestDistance)
-                {
-                    bestDistance = distance;
-                    best = z;
-                }
+                solutions.Add(-Math.Exp(Bisect(Excess, previousU, u)));
             }
 
             previous = value;
             previousU = u;
         }
 
+        // Prefer a zero at or left of the target's real part: a zero between the target and the origin leaves a
+        // slow closed-loop pole beside it and spoils dominance.
+        var left = solutions.Where(z => z <= s.Real).ToList();
+        var pool = left.Count > 0 ? left : solutions;
+        var best = pool.Count == 0 ? double.NaN : pool.OrderBy(z => Math.Abs(z - s.Real)).First();
         if (double.IsNaN(best))
         {
             return Outcome<PlacedStage>.Refused(
@@ -328,7 +325,7 @@ public static class LeadDesigner
                 "Give a larger ratio, or lower the per-stage limit to use more stages.");
         }
 
-        return Outcome<PlacedStage>.Success(new PlacedStage(best, ratio * best, $"Pole/zero ratio fixed at {F(ratio)}; of the placements that add the angle, the one with the zero nearest beneath the target."));
+        return Outcome<PlacedStage>.Success(new PlacedStage(best, ratio * best, $"Pole/zero ratio fixed at {F(ratio)}; of the placements that add the angle, the one with the zero nearest the target's real part, preferring one at or left of it."));
     }
 
     private static Outcome<PlacedStage> Cancel(Loop loop, Complex s, double phi, double perStageDegrees, int stages, double? chosen)

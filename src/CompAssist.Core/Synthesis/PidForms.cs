@@ -39,7 +39,8 @@ public sealed record PidForms(
     double? SeriesTd)
 {
     /// <summary>From parallel gains.</summary>
-    /// <exception cref="ArgumentException">Kp is zero (the standard form does not exist), or a value is not finite.</exception>
+    /// <remarks>With Kp = 0 the standard and series forms do not exist: Ti, Td and N are NaN, the series form null.</remarks>
+    /// <exception cref="ArgumentException">A value is not finite or the filter time is negative.</exception>
     public static PidForms FromParallel(double kp, double ki, double kd, double tf = 0.0)
     {
         if (!double.IsFinite(kp) || !double.IsFinite(ki) || !double.IsFinite(kd) || !double.IsFinite(tf) || tf < 0)
@@ -49,7 +50,8 @@ public sealed record PidForms(
 
         if (kp == 0)
         {
-            throw new ArgumentException("Kp = 0 has no standard (Kc, Ti, Td) form.", nameof(kp));
+            // No proportional action: the standard and series forms do not exist (reported as NaN / null).
+            return new PidForms(kp, ki, kd, tf, 0.0, double.NaN, double.NaN, double.NaN, null, null, null);
         }
 
         var ti = ki == 0 ? double.PositiveInfinity : kp / ki;

@@ -178,6 +178,13 @@ public static class Synthesizer
         }
 
         var zero = LeadDesigner.PointSeenUnder(s, Angles.ToRadians(angle));
+        if (zero >= -1e-9 * s.Magnitude)
+        {
+            return Outcome<CompensatorStage>.Refused(
+                $"The derivative zero would sit at the origin or right of it to add {F(angle)}° here",
+                "Move the target left, or use a lead with a separate pole.");
+        }
+
         return Outcome<CompensatorStage>.Success(new CompensatorStage(CompensatorKind.PD, zero, null, angle));
     }
 

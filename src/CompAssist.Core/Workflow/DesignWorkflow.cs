@@ -67,6 +67,22 @@ public static class DesignWorkflow
         }
 
         var selection = TargetSelector.Select(input.Requirements);
+        if (!selection.IsSuccess && kind is CompensatorKind.Lag or CompensatorKind.PI && OnlyDamping(input.Requirements) is { } zeta)
+        {
+            // Only the damping is given: a lag or PI keeps the transient, so the target is where the ζ ray meets
+            // the uncompensated locus.
+            var onLocus = DampingRay.OnLocus(loop, zeta);
+            if (!onLocus.IsSuccess)
+            {
+                return DesignRun.Failed(onLocus.Problem);
+            }
+
+            selection = Outcome<TargetSelection>.Success(TargetSelector.Select(input.Requirements with { Point = onLocus.Value.Point }).Value! with
+            {
+                Source = "where the ζ ray meets the uncompensated locus (a lag/PI keeps the transient)",
+            });
+        }
+
         if (!selection.IsSuccess)
         {
             return DesignRun.Failed(selection.Problem);
@@ -130,6 +146,11 @@ public static class DesignWorkflow
 
         return (Loop.Create(g.Value, h.Value, sign, padeOrder), null, null);
     }
+
+    private static double? OnlyDamping(Requirements r) =>
+        r.Point is null && r.NaturalFrequency is null && r.MaxSettlingTime is null && r.MaxPeakTime is null
+            ? r.Zeta ?? (r.MaxOvershootPercent is { } os && os > 0 && os < 100 ? SecondOrder.DampingFromOvershoot(os) : null)
+            : null;
 
     private static Problem? CheckLeadOptions(LeadOptions lead) => lead.Placement switch
     {

@@ -152,4 +152,58 @@ public class DesignCommandTests
         Assert.Equal(JsonValueKind.Object, check.GetProperty("margins").ValueKind);
         Assert.True(check.GetProperty("step").GetProperty("finalValue").GetDouble() > 0);
     }
+
+    [Theory]
+    [InlineData("lag", "--kv", "10", "lag")]
+    [InlineData("lead-lag", "--kv", "40", "lead")]
+    [InlineData("pd", "--filter-ratio", "10", "pd")]
+    [InlineData("pi", "--zero-fraction", "0.1", "pi")]
+    [InlineData("pid", "--filter-ratio", "20", "pd")]
+    public void Design_EveryType_ProvedWithStagesAndConstants(string type, string flag, string value, string firstStageKind)
+    {
+        // Lag and PI keep the transient: with only the damping given, the target is where ζ meets the locus.
+        string[] target = type is "lag" or "pi" ? ["--overshoot", "20"] : ["--zeta", "0.5", "--wn", "3"];
+        string[] args = ["design", "--plant", "5/(s(s+1)(s+5))", "--type", type, flag, value, "--json", .. target];
+        var (code, output, error) = CliRunner.Run(args);
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var root = doc.RootElement;
+        Assert.True(root.GetProperty("closedLoop").GetProperty("targetConfirmed").GetBoolean());
+        Assert.Equal(type, root.GetProperty("compensator").GetProperty("type").GetString());
+        var stages = root.GetProperty("compensator").GetProperty("stages");
+        Assert.Contains(stages.EnumerateArray(), st => st.GetProperty("kind").GetString() == firstStageKind);
+        var constants = root.GetProperty("errorConstants");
+        Assert.True(constants.TryGetProperty("type", out _) && constants.TryGetProperty("kv", out _));
+        if (type is "pd" or "pi" or "pid")
+        {
+            var pid = root.GetProperty("compensator").GetProperty("pid");
+            Assert.True(pid.GetProperty("parallel").GetProperty("kp").GetDouble() > 0);
+            Assert.True(pid.TryGetProperty("standard", out _));
+        }
+
+        if (flag == "--kv")
+        {
+            Assert.True(constants.GetProperty("met").GetBoolean());
+        }
+    }
+
+    [Theory]
+    [InlineData("lag", "--kv", "0.1", "without a lag")]
+    [InlineData("lag", "--kp", "3", "already infinite")]
+    [InlineData("pi", "--zero-fraction", "2", "at or right of the target")]
+    public void Design_TypeRefusals_ExitThree(string type, string flag, string value, string reason)
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "5/(s(s+1)(s+5))", "--type", type, "--overshoot", "20", flag, value, "--json");
+        Assert.Equal(3, code);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(reason, error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_TwoSteadyStateRequirements_Refused()
+    {
+        var (code, _, error) = CliRunner.Run("design", "--plant", "1/(s(s+1))", "--type", "lag", "--kv", "5", "--ramp-error", "0.1");
+        Assert.Equal(2, code);
+        Assert.Contains("both set a steady-state requirement", error, StringComparison.Ordinal);
+    }
 }
