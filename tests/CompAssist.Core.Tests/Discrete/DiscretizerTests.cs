@@ -1,0 +1,135 @@
+using System.Numerics;
+using CompAssist.Core.Discrete;
+using CompAssist.Core.Model;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Simulation;
+using CompAssist.Core.Tests.Support;
+
+namespace CompAssist.Core.Tests.Discrete;
+
+/// <summary>
+/// Discrete equivalents against the standard table entries (Franklin, Powell and Workman, Digital Control of
+/// Dynamic Systems, 3rd ed., chapter 6 and its ZOH table; from memory) and against independent computations.
+/// </summary>
+public class DiscretizerTests
+{
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+
+    private static DiscreteTransferFunction Of(string c, double t, DiscretizationMethod m, double? w = null)
+    {
+        var r = Discretizer.Discretize(FromText(c), t, m, w);
+        Assert.True(r.IsSuccess, r.Problem?.ToString());
+        return r.Value.Discrete;
+    }
+
+    private static void SameCoefficients(double[] expected, IReadOnlyList<double> actual, double tolerance = 1e-12)
+    {
+        Assert.Equal(expected.Length, actual.Count);
+        for (var i = 0; i < expected.Length; i++)
+        {
+            Tolerance.Close(expected[i], actual[i], tolerance, 1e-15, $"coefficient {i}");
+        }
+    }
+
+    [Fact]
+    public void Zoh_FirstOrderLag_MatchesTable()
+    {
+        // a/(s + a) → (1 − e^{−aT}) z⁻¹ / (1 − e^{−aT} z⁻¹).
+        double a = 3, t = 0.1, e = Math.Exp(-a * t);
+        var d = Of("3/(s+3)", t, DiscretizationMethod.Zoh);
+        SameCoefficients([0, 1 - e], d.Numerator);
+        SameCoefficients([1, -e], d.Denominator);
+    }
+
+    [Fact]
+    public void Zoh_DoubleIntegrator_MatchesTable()
+    {
+        // 1/s² → T²(z + 1)/(2(z − 1)²) = (T²/2)(z⁻¹ + z⁻²)/(1 − 2z⁻¹ + z⁻²).
+        var t = 0.05;
+        var d = Of("1/s^2", t, DiscretizationMethod.Zoh);
+        SameCoefficients([0, t * t / 2, t * t / 2], d.Numerator, 1e-9);
+        SameCoefficients([1, -2, 1], d.Denominator, 1e-12);
+    }
+
+    [Fact]
+    public void Zoh_IntegratorWithLag_MatchesTable()
+    {
+        // 1/(s(s + a)) → [(aT − 1 + e^{−aT}) z + (1 − e^{−aT} − aT e^{−aT})] / (a²(z − 1)(z − e^{−aT})).
+        double a = 2, t = 0.2, e = Math.Exp(-a * t);
+        var d = Of("1/(s(s+2))", t, DiscretizationMethod.Zoh);
+        SameCoefficients([0, ((a * t) - 1 + e) / (a * a), (1 - e - (a * t * e)) / (a * a)], d.Numerator, 1e-10);
+        SameCoefficients([1, -(1 + e), e], d.Denominator);
+    }
+
+    [Fact]
+    public void Zoh_StepAtSamples_EqualsContinuousStep()
+    {
+        // Independent check: the ZOH equivalent reproduces the continuous step response at the samples.
+        var g = FromText("10(s+2)/((s+1)(s^2+2s+10))");
+        var t = 0.02;
+        var d = Discretizer.ZeroOrderHold(g, t);
+        var y = d.Filter(Enumerable.Repeat(1.0, 300).ToArray());
+        var continuous = StepSimulator.Step(CascadeRealization.Of(g), t, 300);
+        for (var k = 0; k < 300; k++)
+        {
+            // The sampled output at k responds to inputs up to k − 1 (one-sample delay of a strictly proper G).
+            Tolerance.Close(continuous.Values[k], y[k], 0, 1e-10, $"k={k}");
+        }
+    }
+
+    [Fact]
+    public void Tustin_FirstOrder_MatchesBilinearByHand()
+    {
+        // a/(s + a) with s = (2/T)(z − 1)/(z + 1): aT(1 + z⁻¹)/((2 + aT) − (2 − aT) z⁻¹).
+        double a = 5, t = 0.01;
+        var d = Of("5/(s+5)", t, DiscretizationMethod.Tustin);
+        SameCoefficients([a * t / (2 + (a * t)), a * t / (2 + (a * t))], d.Numerator);
+        SameCoefficients([1, -(2 - (a * t)) / (2 + (a * t))], d.Denominator);
+    }
+
+    [Fact]
+    public void Prewarp_IsExactAtItsFrequency()
+    {
+        var c = FromText("4.7(s+2.93)/(s+5.46)");
+        double t = 0.05, w = 8;
+        var d = Of("4.7(s+2.93)/(s+5.46)", t, DiscretizationMethod.Prewarp, w);
+        Tolerance.Close(c.Evaluate(new Complex(0, w)), d.Evaluate(Complex.FromPolarCoordinates(1, w * t)), 1e-12);
+    }
+
+    [Fact]
+    public void Matched_MapsPolesAndKeepsDcGain()
+    {
+        double t = 0.1;
+        var d = Of("2(s+3)/((s+1)(s+10))", t, DiscretizationMethod.Matched);
+        Tolerance.SameRoots([new Complex(Math.Exp(-t), 0), new Complex(Math.Exp(-10 * t), 0)], d.Poles, 1e-14);
+        Tolerance.SameRoots([new Complex(Math.Exp(-3 * t), 0), new Complex(-1, 0)], d.Zeros, 1e-14);
+        Tolerance.Close(2.0 * 3 / 10, d.DcGain, 1e-12);
+    }
+
+    [Fact]
+    public void Backward_FirstOrder_MatchesByHand()
+    {
+        // 1/(s + 1), s = (z − 1)/(zT): T/((1 + T) − z⁻¹).
+        var t = 0.1;
+        var d = Of("1/(s+1)", t, DiscretizationMethod.Backward);
+        SameCoefficients([t / (1 + t), 0], d.Numerator);
+        SameCoefficients([1, -1 / (1 + t)], d.Denominator);
+    }
+
+    [Fact]
+    public void Forward_SlowRateOnFastPole_WarnsUnstable()
+    {
+        var r = Discretizer.Discretize(FromText("1/(s+50)"), 0.05, DiscretizationMethod.Forward);
+        Assert.True(r.IsSuccess);
+        Assert.Contains(r.Value.Warnings, w => w.Contains("outside the unit circle", StringComparison.Ordinal));
+        Assert.True(r.Value.Discrete.Poles[0].Magnitude > 1);
+    }
+
+    [Fact]
+    public void Discretize_ImproperPid_RefusedWithFix()
+    {
+        var r = Discretizer.Discretize(FromText("2(s+1)(s+3)/s"), 0.01, DiscretizationMethod.Tustin);
+        Assert.False(r.IsSuccess);
+        Assert.Contains("filter", r.Problem!.Hint, StringComparison.Ordinal);
+    }
+}
