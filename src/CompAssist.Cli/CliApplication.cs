@@ -25,6 +25,7 @@ public static class CliApplication
         root.Subcommands.Add(CheckCommand.Create(stdout, stderr));
         root.Subcommands.Add(LocusCommand.Create(stdout, stderr));
         root.Subcommands.Add(PlotCommand.Create(stdout, stderr));
+        root.Subcommands.Add(DiscretizeCommand.Create(stdout, stderr));
         var parse = root.Parse(args);
         try
         {
