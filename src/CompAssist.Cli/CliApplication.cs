@@ -26,6 +26,7 @@ public static class CliApplication
         root.Subcommands.Add(LocusCommand.Create(stdout, stderr));
         root.Subcommands.Add(PlotCommand.Create(stdout, stderr));
         root.Subcommands.Add(DiscretizeCommand.Create(stdout, stderr));
+        root.Subcommands.Add(HandoffCommand.Create(stdout, stderr));
         var parse = root.Parse(args);
         try
         {

@@ -3,6 +3,7 @@ using CompAssist.Core.Analysis;
 using CompAssist.Core.Model;
 using CompAssist.Core.Pictures;
 using CompAssist.Core.Reporting;
+using CompAssist.Core.Simulation;
 using OxyPlot;
 using OxyPlot.Annotations;
 using OxyPlot.Axes;
@@ -34,6 +35,33 @@ public static class PlotBuilder
             PlotKind.Frequency => Frequency(input),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown plot kind."),
         };
+    }
+
+    /// <summary>The continuous step beside the sampled loop's step at the sampling instants.</summary>
+    public static PlotModel SampledStep(string title, SampledResponse continuous, SampledResponse sampled)
+    {
+        ArgumentNullException.ThrowIfNull(continuous);
+        ArgumentNullException.ThrowIfNull(sampled);
+        var model = NewModel(title.Length > 0 ? $"Continuous and sampled step — {title}" : "Continuous and sampled step", $"sample time {TransferFunctionFormatter.Number(sampled.SampleTime, 4)} s, plant by zero-order hold");
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = "time", Unit = "s", MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(40, OxyColors.Black) });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "output y", MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(40, OxyColors.Black) });
+        var line = new LineSeries { Title = "continuous", Color = Branch, StrokeThickness = 1.8 };
+        for (var k = 0; k < continuous.Values.Length; k++)
+        {
+            line.Points.Add(new DataPoint(continuous.TimeAt(k), continuous.Values[k]));
+        }
+
+        var stairs = new StairStepSeries { Title = "sampled (held between samples)", Color = Designed, LineStyle = LineStyle.Dash, StrokeThickness = 1.2 };
+        var end = Math.Min(sampled.Values.Length, (int)Math.Ceiling(continuous.Horizon / sampled.SampleTime) + 1);
+        for (var k = 0; k < end; k++)
+        {
+            stairs.Points.Add(new DataPoint(sampled.TimeAt(k), sampled.Values[k]));
+        }
+
+        model.Series.Add(line);
+        model.Series.Add(stairs);
+        Legend(model);
+        return model;
     }
 
     private static PlotModel NewModel(string title, string subtitle) => new()

@@ -1,0 +1,104 @@
+using System.CommandLine;
+using CompAssist.Core.Discrete;
+using CompAssist.Core.Export;
+using CompAssist.Core.Workflow;
+using CompAssist.Plotting;
+
+namespace CompAssist.Cli.Commands;
+
+/// <summary><c>compassist handoff</c>: discretize, re-prove sampled, and export code, coefficients, vectors and a report.</summary>
+internal static class HandoffCommand
+{
+    public static Command Create(TextWriter stdout, TextWriter stderr)
+    {
+        var settings = new DesignSettings();
+        var output = new Option<string?>("--out") { Description = "Folder to write the files into (created if missing)." };
+        var sampleTime = new Option<double?>("--sample-time") { Description = "Sample time in seconds (default: recommended from the crossover)." };
+        var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward.", DefaultValueFactory = _ => "tustin" };
+        var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
+        var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
+        var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
+        var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");
+        settings.AddTo(command);
+        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, name })
+        {
+            command.Options.Add(option);
+        }
+
+        command.SetAction(parse =>
+        {
+            if (parse.GetValue(output) is not { } folder)
+            {
+                stderr.WriteLine("error: --out DIR is required.");
+                return CliApplication.InputError;
+            }
+
+            if (!Enum.TryParse<DiscretizationMethod>(parse.GetValue(method), ignoreCase: true, out var m) || !Enum.IsDefined(m))
+            {
+                stderr.WriteLine($"error: --method '{parse.GetValue(method)}' is not a method. Use tustin, prewarp, matched, zoh or backward.");
+                return CliApplication.InputError;
+            }
+
+            var input = DesignCommand.Input(parse, settings, stderr, out var code);
+            if (input is null)
+            {
+                return code;
+            }
+
+            var run = DesignWorkflow.Run(input);
+            if (Errors.Report(run.FieldError, run.Problem, input.Plant is null, stderr) is { } failure)
+            {
+                return failure;
+            }
+
+            var options = new HandoffOptions
+            {
+                SampleTime = parse.GetValue(sampleTime),
+                Method = m,
+                PrewarpFrequency = parse.GetValue(prewarp),
+                ComputationDelay = parse.GetValue(delay),
+                Name = parse.GetValue(name)!,
+            };
+            var package = HandoffPackage.Build(run.Report!, options, input.Name);
+            if (Errors.Report(null, package.Problem, false, stderr) is { } refused)
+            {
+                return refused;
+            }
+
+            try
+            {
+                Directory.CreateDirectory(folder);
+                foreach (var (file, content) in package.Value!.Files)
+                {
+                    AtomicFile.Write(Path.Combine(folder, file), content);
+                }
+
+                var plot = PlotBuilder.SampledStep(input.Name, run.Report!.Check.Output, package.Value.Proof.Step);
+                PlotExporter.Write(plot, Path.Combine(folder, $"{options.Name}-step.svg"));
+            }
+            catch (IOException e)
+            {
+                stderr.WriteLine($"error: cannot write into {folder}: {e.Message}");
+                return CliApplication.InputError;
+            }
+            catch (UnauthorizedAccessException e)
+            {
+                stderr.WriteLine($"error: cannot write into {folder}: {e.Message}");
+                return CliApplication.InputError;
+            }
+
+            var proof = package.Value.Proof;
+            stdout.WriteLine($"wrote {package.Value.Files.Count + 1} files into {folder}");
+            stdout.WriteLine($"  sample time: {package.Value.SampleTimeNote}");
+            stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");
+            foreach (var w in package.Value.Discretization.Warnings.Concat(proof.Warnings))
+            {
+                stdout.WriteLine($"  ! {w}");
+            }
+
+            stdout.WriteLine("  CAUTION: the controller is not a safety function; read the caution in the report before running hardware.");
+            return proof.Stable ? CliApplication.Success : CliApplication.Refused;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,22 @@
+using CompAssist.Core.Discrete;
+
+namespace CompAssist.Core.Export;
+
+/// <summary>Choices for the hand-off to firmware.</summary>
+public sealed record HandoffOptions
+{
+    /// <summary>Sample time in seconds; null to use the recommendation from the crossover frequency.</summary>
+    public double? SampleTime { get; init; }
+
+    /// <summary>Discretization method.</summary>
+    public DiscretizationMethod Method { get; init; } = DiscretizationMethod.Tustin;
+
+    /// <summary>Pre-warp frequency (rad/s) for <see cref="DiscretizationMethod.Prewarp"/>.</summary>
+    public double? PrewarpFrequency { get; init; }
+
+    /// <summary>Whether the firmware applies the command one sample after reading the measurement.</summary>
+    public bool ComputationDelay { get; init; }
+
+    /// <summary>C identifier for the exported controller.</summary>
+    public string Name { get; init; } = "compassist_ctrl";
+}

@@ -1,0 +1,263 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using CompAssist.Core.Common;
+using CompAssist.Core.Discrete;
+using CompAssist.Core.Model;
+using CompAssist.Core.Reporting;
+using CompAssist.Core.Workflow;
+
+namespace CompAssist.Core.Export;
+
+/// <summary>
+/// Everything a firmware engineer receives for one design: the C header and source, a JSON coefficient file,
+/// CSV test vectors and a Markdown report — each stating sample time, form, conventions, units, the source
+/// design and the caution.
+/// </summary>
+/// <param name="Files">File name → content.</param>
+/// <param name="Discretization">The discretization used.</param>
+/// <param name="Sections">The implemented sections.</param>
+/// <param name="Proof">The sampled loop's proof.</param>
+/// <param name="SampleTimeNote">How the sample time was chosen.</param>
+public sealed record HandoffPackage(
+    ImmutableDictionary<string, string> Files,
+    Discretizer.Result Discretization,
+    ImmutableArray<Section> Sections,
+    SampledLoopProof Proof,
+    string SampleTimeNote)
+{
+    /// <summary>
+    /// Recommended sample time: the sampling frequency at least twenty times the gain crossover (common practice,
+    /// e.g. Franklin, Powell and Workman, Digital Control of Dynamic Systems, 3rd ed., chapter 11: 20–40× the
+    /// bandwidth), rounded down to 1, 2 or 5 × 10ⁿ seconds.
+    /// </summary>
+    public static double RecommendedSampleTime(double crossover)
+    {
+        var t = 2 * Math.PI / (20 * crossover);
+        var decade = Math.Pow(10, Math.Floor(Math.Log10(t)));
+        var mantissa = t / decade;
+        return decade * (mantissa >= 5 ? 5 : mantissa >= 2 ? 2 : 1);
+    }
+
+    /// <summary>Builds the package for a proved design.</summary>
+    public static Outcome<HandoffPackage> Build(DesignReport report, HandoffOptions options, string caseName)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        ArgumentNullException.ThrowIfNull(options);
+        var c = report.Design.Compensator.TransferFunction;
+        var loop = report.Design.Loop;
+        var margins = report.Check.Margins;
+        if (margins is null)
+        {
+            return Outcome<HandoffPackage>.Refused("The continuous design is unstable", "Fix the design before handing it off.");
+        }
+
+        string note;
+        double t;
+        var wc = margins.GainCrossover;
+        if (options.SampleTime is { } given)
+        {
+            t = given;
+            note = $"given: T = {F(t)} s";
+        }
+        else if (double.IsFinite(wc))
+        {
+            t = RecommendedSampleTime(wc);
+            note = $"recommended: the sampling frequency 2π/T at least 20× the gain crossover {F(wc)} rad/s, rounded down: T = {F(t)} s";
+        }
+        else
+        {
+            return Outcome<HandoffPackage>.Refused("The loop has no gain crossover to size the sample time from", "Give --sample-time T.");
+        }
+
+        if (double.IsFinite(wc))
+        {
+            var hold = wc * t / 2 * 180 / Math.PI;
+            var computation = options.ComputationDelay ? wc * t * 180 / Math.PI : 0;
+            note += $". At the crossover the hold costs about {F(hold)}° (ωc·T/2){(options.ComputationDelay ? $" and the one-sample computation delay {F(computation)}°" : string.Empty)}, leaving about {F(margins.PhaseMarginDeg - hold - computation)}° of the {F(margins.PhaseMarginDeg)}° phase margin.";
+        }
+
+        var discrete = Discretizer.Discretize(c, t, options.Method, options.PrewarpFrequency);
+        if (!discrete.IsSuccess)
+        {
+            return Outcome<HandoffPackage>.Refused(discrete.Problem);
+        }
+
+        var d = discrete.Value.Discrete;
+        var sections = SectionSplitter.Split(d);
+        var proof = SampledLoop.Prove(loop, d, options.ComputationDelay);
+        var continuous = report.Check.Step;
+        if (proof.Stable && (proof.Metrics.OvershootPercent > continuous.OvershootPercent + 5 || proof.Metrics.SettlingTime2Percent > 1.5 * continuous.SettlingTime2Percent))
+        {
+            proof = proof with
+            {
+                Warnings = proof.Warnings.Add($"Sampling degrades the step: overshoot {F(proof.Metrics.OvershootPercent)} % against {F(continuous.OvershootPercent)} % continuous, 2 % settling {F(proof.Metrics.SettlingTime2Percent)} s against {F(continuous.SettlingTime2Percent)} s. Sample faster, drop the computation delay, or design with the sampling delay included."),
+            };
+        }
+        var origin = $"{(caseName.Length > 0 ? caseName + ": " : string.Empty)}C(s) = {c} for G(s) = {loop.Plant}, H(s) = {loop.Feedback}";
+        (string header, string source) code;
+        try
+        {
+            code = CCodeGenerator.Generate(options.Name, sections, t, origin);
+        }
+        catch (ArgumentException)
+        {
+            return Outcome<HandoffPackage>.Refused($"'{options.Name}' is not a C identifier", "Use letters, digits and underscores, starting with a letter.");
+        }
+
+        var vectors = Vectors(sections);
+        var files = ImmutableDictionary.CreateBuilder<string, string>();
+        files.Add($"{options.Name}.h", code.header);
+        files.Add($"{options.Name}.c", code.source);
+        files.Add($"{options.Name}.json", Json(options, discrete.Value, sections, proof, origin, note));
+        files.Add($"{options.Name}-vectors.csv", vectors);
+        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, sections, proof, origin, note, caseName));
+        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, sections, proof, note));
+    }
+
+    private static string Vectors(ImmutableArray<Section> sections)
+    {
+        var random = new Random(20261201);
+        var runs = new (string Name, double[] Input)[]
+        {
+            ("impulse", [1.0, .. Enumerable.Repeat(0.0, 99)]),
+            ("step", [.. Enumerable.Repeat(1.0, 100)]),
+            ("random", [.. Enumerable.Range(0, 100).Select(_ => (2 * random.NextDouble()) - 1)]),
+        };
+        var sb = new StringBuilder();
+        sb.AppendLine("# CompAssist test vectors: feed 'input' to <name>_step from <name>_init, one row per sample; 'expected' is the");
+        sb.AppendLine("# double-precision output of the same section cascade. Runs restart from rest. Units: input = control error,");
+        sb.AppendLine("# output = actuator command. The controller is not a safety function; see the report's caution.");
+        sb.AppendLine("run,k,input,expected");
+        foreach (var (name, input) in runs)
+        {
+            var output = SectionSplitter.Filter(sections, input);
+            for (var k = 0; k < input.Length; k++)
+            {
+                sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]:R},{output[k]:R}");
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, string origin, string note)
+    {
+        using var stream = new MemoryStream();
+        using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
+        {
+            var d = discrete.Discrete;
+            w.WriteStartObject();
+            w.WriteString("name", options.Name);
+            w.WriteString("source", origin);
+            w.WriteNumber("sampleTime", d.SampleTime);
+            w.WriteString("sampleTimeNote", note);
+            w.WriteString("method", DiscreteReport.MethodName(discrete.Method));
+            w.WriteString("units", "input: control error in the measurement's units; output: actuator command in the compensator's output units");
+            w.WriteString("convention", "C(z) = (b0 + b1 z^-1 + ...)/(1 + a1 z^-1 + ...); sections in transposed direct form II: y = b0 x + s1; s1 = b1 x - a1 y + s2; s2 = b2 x - a2 y");
+            w.WriteBoolean("computationDelay", options.ComputationDelay);
+            w.WriteStartArray("numerator");
+            foreach (var b in d.Numerator)
+            {
+                w.WriteNumberValue(b);
+            }
+
+            w.WriteEndArray();
+            w.WriteStartArray("denominator");
+            foreach (var a in d.Denominator)
+            {
+                w.WriteNumberValue(a);
+            }
+
+            w.WriteEndArray();
+            w.WriteStartArray("sections");
+            foreach (var q in sections)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("b0", q.B0);
+                w.WriteNumber("b1", q.B1);
+                w.WriteNumber("b2", q.B2);
+                w.WriteNumber("a1", q.A1);
+                w.WriteNumber("a2", q.A2);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteStartObject("sampledLoop");
+            w.WriteBoolean("stable", proof.Stable);
+            w.WriteNumber("largestPoleMagnitude", proof.LargestPoleMagnitude);
+            JsonNumbers.Write(w, "overshootPercent", proof.Metrics.OvershootPercent);
+            JsonNumbers.Write(w, "settlingTime2", proof.Metrics.SettlingTime2Percent);
+            w.WriteEndObject();
+            w.WriteString("caution", Cautions.Text);
+            w.WriteEndObject();
+        }
+
+        return Encoding.UTF8.GetString(stream.ToArray());
+    }
+
+    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, string origin, string note, string caseName)
+    {
+        var d = discrete.Discrete;
+        var m = report.Check.Step;
+        var s = proof.Metrics;
+        var sb = new StringBuilder();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# Hand-off: {options.Name}");
+        sb.AppendLine();
+        sb.AppendLine("> **Caution.** " + Cautions.Text);
+        sb.AppendLine();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Source design: {origin}");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Sample time: {F(d.SampleTime)} s ({note})");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Method: {DiscreteReport.MethodName(discrete.Method)} ({discrete.GainMatching}); computation delay {(options.ComputationDelay ? "one sample" : "none")}");
+        sb.AppendLine("- Form: cascaded sections in transposed direct form II, double precision; saturation and anti-windup are not included");
+        sb.AppendLine("- Units: input = control error (measurement units), output = actuator command");
+        sb.AppendLine();
+        sb.AppendLine("## Sampled loop (plant by zero-order hold)");
+        sb.AppendLine();
+        sb.AppendLine("| | continuous | sampled |");
+        sb.AppendLine("|---|---|---|");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"| overshoot % | {F(m.OvershootPercent)} | {F(s.OvershootPercent)} |");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"| 2 % settling (s) | {F(m.SettlingTime2Percent)} | {F(s.SettlingTime2Percent)} |");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"| peak time (s) | {F(m.PeakTime)} | {F(s.PeakTime)} |");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"| stable | {(report.Check.Stable ? "yes" : "no")} | {(proof.Stable ? "yes" : "NO")} (largest \\|z\\| = {F(proof.LargestPoleMagnitude)}) |");
+        sb.AppendLine();
+        sb.AppendLine("Closed-loop poles in z (and their s-plane equivalents ln z / T):");
+        sb.AppendLine();
+        foreach (var (z, e) in proof.ClosedLoopPoles.Zip(proof.EquivalentSPlanePoles))
+        {
+            sb.AppendLine(CultureInfo.InvariantCulture, $"- {TransferFunctionFormatter.Complex(z, 8)}  →  {TransferFunctionFormatter.Complex(e, 5)}");
+        }
+
+        foreach (var w in discrete.Warnings.Concat(proof.Warnings))
+        {
+            sb.AppendLine();
+            sb.AppendLine("> **Warning.** " + w);
+        }
+
+        sb.AppendLine();
+        sb.AppendLine("## Coefficients");
+        sb.AppendLine();
+        sb.AppendLine("C(z) = (b0 + b1 z⁻¹ + …)/(1 + a1 z⁻¹ + …); u[k] = Σ bᵢ e[k−i] − Σᵢ≥₁ aᵢ u[k−i].");
+        sb.AppendLine();
+        sb.AppendLine("| section | b0 | b1 | b2 | a1 | a2 |");
+        sb.AppendLine("|---|---|---|---|---|---|");
+        for (var i = 0; i < sections.Length; i++)
+        {
+            var q = sections[i];
+            sb.AppendLine(CultureInfo.InvariantCulture, $"| {i + 1} | {q.B0:R} | {q.B1:R} | {q.B2:R} | {q.A1:R} | {q.A2:R} |");
+        }
+
+        sb.AppendLine();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: `{options.Name}.h`, `{options.Name}.c` (C99), `{options.Name}.json`, `{options.Name}-vectors.csv`, `{options.Name}-step.svg` (continuous and sampled step).");
+        sb.AppendLine();
+        sb.AppendLine("## The continuous design and its proof");
+        sb.AppendLine();
+        sb.AppendLine("```text");
+        sb.Append(DesignTextReport.Render(report, caseName, Pictures.PictureStyle.Ascii));
+        sb.AppendLine("```");
+        return sb.ToString();
+    }
+
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 5);
+}

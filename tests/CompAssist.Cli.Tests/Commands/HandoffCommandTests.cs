@@ -1,0 +1,93 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Text.Json;
+using CompAssist.Cli.Tests.Support;
+
+namespace CompAssist.Cli.Tests.Commands;
+
+public class HandoffCommandTests
+{
+    private static (int Code, string Output, string Error) Run(string file, string arguments, string directory)
+    {
+        using var process = Process.Start(new ProcessStartInfo(file, arguments) { WorkingDirectory = directory, RedirectStandardOutput = true, RedirectStandardError = true })!;
+        var output = process.StandardOutput.ReadToEndAsync();
+        var error = process.StandardError.ReadToEndAsync();
+        process.WaitForExit();
+        return (process.ExitCode, output.Result, error.Result);
+    }
+
+    [Fact]
+    public void Handoff_DemoCase_WritesFilesAndTheCodeMatchesItsVectors()
+    {
+        var folder = Directory.CreateTempSubdirectory("compassist-handoff-").FullName;
+        try
+        {
+            var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
+            var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.005", "--name", "belt_axis");
+            Assert.True(code == 0, error + output);
+            foreach (var name in new[] { "belt_axis.h", "belt_axis.c", "belt_axis.json", "belt_axis-vectors.csv", "belt_axis-report.md", "belt_axis-step.svg" })
+            {
+                Assert.True(File.Exists(Path.Combine(folder, name)), name);
+            }
+
+            foreach (var text in new[] { "belt_axis.h", "belt_axis.json", "belt_axis-report.md", "belt_axis-vectors.csv" }.Select(n => File.ReadAllText(Path.Combine(folder, n))))
+            {
+                Assert.Contains("safety function", text.Replace("\n * ", " ", StringComparison.Ordinal).Replace("\n# ", " ", StringComparison.Ordinal), StringComparison.Ordinal);
+            }
+
+            using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "belt_axis.json")));
+            Assert.Equal(0.005, json.RootElement.GetProperty("sampleTime").GetDouble());
+            Assert.True(json.RootElement.GetProperty("sampledLoop").GetProperty("stable").GetBoolean());
+
+            // Compile the exported code and run every vector row.
+            var rows = File.ReadAllLines(Path.Combine(folder, "belt_axis-vectors.csv")).Where(l => !l.StartsWith('#') && !l.StartsWith("run,", StringComparison.Ordinal))
+                .Select(l => l.Split(',')).ToList();
+            var program = new System.Text.StringBuilder();
+            program.AppendLine("#include <stdio.h>\n#include \"belt_axis.h\"\nint main(void)\n{\n    belt_axis_state s;");
+            foreach (var run in rows.GroupBy(r => r[0]))
+            {
+                program.AppendLine("    belt_axis_init(&s);");
+                foreach (var r in run)
+                {
+                    program.AppendLine(CultureInfo.InvariantCulture, $"    printf(\"%.17g\\n\", belt_axis_step(&s, {r[2]}));");
+                }
+            }
+
+            program.AppendLine("    return 0;\n}");
+            File.WriteAllText(Path.Combine(folder, "main.c"), program.ToString());
+            var compiler = new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.First(File.Exists);
+            var compile = Run(compiler, "-std=c99 -Wall -Wextra -Werror -pedantic -o test main.c belt_axis.c", folder);
+            Assert.True(compile.Code == 0, compile.Error);
+            var outputs = Run(Path.Combine(folder, "test"), string.Empty, folder).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+            Assert.Equal(rows.Count, outputs.Length);
+            for (var i = 0; i < rows.Count; i++)
+            {
+                var expected = double.Parse(rows[i][3], CultureInfo.InvariantCulture);
+                var actual = double.Parse(outputs[i], CultureInfo.InvariantCulture);
+                Assert.True(Math.Abs(expected - actual) <= 1e-12 * Math.Max(1, Math.Abs(expected)), $"row {i}: {expected} vs {actual}");
+            }
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Handoff_ImproperPid_RefusedWithFix()
+    {
+        var folder = Path.Combine(Path.GetTempPath(), $"compassist-never-{Guid.NewGuid():N}");
+        var (code, _, error) = CliRunner.Run("handoff", "--plant", "1/(s(s+1)(s+5))", "--type", "pid", "--zeta", "0.5", "--wn", "1", "--out", folder);
+        Assert.Equal(3, code);
+        Assert.Contains("filter", error, StringComparison.Ordinal);
+        Assert.False(Directory.Exists(folder));
+    }
+
+    [Fact]
+    public void Handoff_NoOut_Refused()
+    {
+        var (code, _, error) = CliRunner.Run("handoff", "--plant", "1/(s(s+1))", "--zeta", "0.5", "--wn", "1");
+        Assert.Equal(2, code);
+        Assert.Contains("--out DIR is required", error, StringComparison.Ordinal);
+    }
+}

@@ -1,0 +1,52 @@
+using System.Numerics;
+using CompAssist.Core.Discrete;
+using CompAssist.Core.Model;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Targets;
+using CompAssist.Core.Tests.Support;
+
+namespace CompAssist.Core.Tests.Discrete;
+
+public class SampledLoopTests
+{
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+
+    [Fact]
+    public void Prove_ProportionalOnFirstOrder_PoleByHand()
+    {
+        // ZOH of 1/(s+1) is (1 − e^{−T})/(z − e^{−T}); with gain K the closed-loop pole is e^{−T} − K(1 − e^{−T}).
+        double t = 0.2, k = 3, e = Math.Exp(-t);
+        var loop = Loop.Create(FromText("1/(s+1)"));
+        var proof = SampledLoop.Prove(loop, DiscreteTransferFunction.FromFactors(k, [], [], t), computationDelay: false);
+        Tolerance.Close(new Complex(e - (k * (1 - e)), 0), Assert.Single(proof.ClosedLoopPoles), 1e-13);
+        Tolerance.Close(k / (1 + k), proof.Step.Values[^1], 1e-9, what: "final value K/(1+K)");
+        Assert.True(proof.Stable);
+    }
+
+    [Fact]
+    public void Prove_FastSampling_MatchesContinuousStep()
+    {
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var c = FromText("4(s+2)/(s+4)");
+        var d = Discretizer.Discretize(c, 0.001, DiscretizationMethod.Tustin).Value!.Discrete;
+        var proof = SampledLoop.Prove(loop, d, computationDelay: false, samples: 4000);
+        Assert.True(proof.Stable);
+        Tolerance.Close(SecondOrder.OvershootPercent(0.5), proof.Metrics.OvershootPercent, 0, 0.3, "overshoot close to the continuous 16.3 %");
+        Tolerance.Close(1.0, proof.Metrics.FinalValue, 1e-6);
+    }
+
+    [Fact]
+    public void Prove_SlowSamplingWithComputationDelay_CanDestabilize()
+    {
+        // K/(s(s+1)) with K = 4 is stable in continuous time for any K, but sampled slowly with a one-sample
+        // computation delay the loop loses its phase margin (common practice).
+        var loop = Loop.Create(FromText("1/(s(s+1))"));
+        var fast = SampledLoop.Prove(loop, DiscreteTransferFunction.FromFactors(4, [], [], 0.01), computationDelay: true);
+        var slow = SampledLoop.Prove(loop, DiscreteTransferFunction.FromFactors(4, [], [], 0.6), computationDelay: true);
+        Assert.True(fast.Stable);
+        Assert.False(slow.Stable);
+        Assert.Contains(slow.Warnings, w => w.StartsWith("UNSTABLE when sampled", StringComparison.Ordinal));
+        Assert.Equal(1, slow.DelaySamples);
+    }
+}
