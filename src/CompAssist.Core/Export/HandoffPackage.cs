@@ -157,20 +157,8 @@ public sealed record HandoffPackage(
             w.WriteString("units", "input: control error in the measurement's units; output: actuator command in the compensator's output units");
             w.WriteString("convention", "C(z) = (b0 + b1 z^-1 + ...)/(1 + a1 z^-1 + ...); sections in transposed direct form II: y = b0 x + s1; s1 = b1 x - a1 y + s2; s2 = b2 x - a2 y");
             w.WriteBoolean("computationDelay", options.ComputationDelay);
-            w.WriteStartArray("numerator");
-            foreach (var b in d.Numerator)
-            {
-                w.WriteNumberValue(b);
-            }
-
-            w.WriteEndArray();
-            w.WriteStartArray("denominator");
-            foreach (var a in d.Denominator)
-            {
-                w.WriteNumberValue(a);
-            }
-
-            w.WriteEndArray();
+            JsonNumbers.WriteArray(w, "numerator", d.Numerator);
+            JsonNumbers.WriteArray(w, "denominator", d.Denominator);
             w.WriteStartArray("sections");
             foreach (var q in sections)
             {

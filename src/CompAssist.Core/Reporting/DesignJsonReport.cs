@@ -87,10 +87,10 @@ public static class DesignJsonReport
         Number(w, "dc", c.DcGain);
         Number(w, "highFrequency", c.HighFrequencyGain);
         w.WriteEndObject();
-        Complexes(w, "zeros", c.TransferFunction.Zeros);
-        Complexes(w, "poles", c.TransferFunction.Poles);
-        Numbers(w, "numerator", c.TransferFunction.Numerator.ToDescending());
-        Numbers(w, "denominator", c.TransferFunction.Denominator.ToDescending());
+        JsonNumbers.WriteComplexArray(w, "zeros", c.TransferFunction.Zeros);
+        JsonNumbers.WriteComplexArray(w, "poles", c.TransferFunction.Poles);
+        JsonNumbers.WriteArray(w, "numerator", c.TransferFunction.Numerator.ToDescending());
+        JsonNumbers.WriteArray(w, "denominator", c.TransferFunction.Denominator.ToDescending());
         w.WriteString("expression", c.TransferFunction.ToString());
         Number(w, "angleDeficiencyDeg", design.AngleDeficiencyDegrees);
         w.WriteStartArray("stages");
@@ -98,26 +98,8 @@ public static class DesignJsonReport
         {
             w.WriteStartObject();
             w.WriteString("kind", KindName(st.Kind));
-            w.WriteStartArray("zeros");
-            if (st.Zero is { } z)
-            {
-                w.WriteStartObject();
-                w.WriteNumber("re", z);
-                w.WriteNumber("im", 0);
-                w.WriteEndObject();
-            }
-
-            w.WriteEndArray();
-            w.WriteStartArray("poles");
-            if (st.Pole is { } stagePole)
-            {
-                w.WriteStartObject();
-                w.WriteNumber("re", stagePole);
-                w.WriteNumber("im", 0);
-                w.WriteEndObject();
-            }
-
-            w.WriteEndArray();
+            JsonNumbers.WriteComplexArray(w, "zeros", st.Zero is { } z ? [new Complex(z, 0)] : []);
+            JsonNumbers.WriteComplexArray(w, "poles", st.Pole is { } stagePole ? [new Complex(stagePole, 0)] : []);
             Number(w, "angleDeg", st.AngleAtTargetDegrees);
             w.WriteEndObject();
         }
@@ -192,7 +174,7 @@ public static class DesignJsonReport
         }
 
         w.WriteStartObject("closedLoop");
-        Numbers(w, "characteristic", proof.CharacteristicDescending);
+        JsonNumbers.WriteArray(w, "characteristic", proof.CharacteristicDescending);
         w.WriteStartArray("poles");
         foreach (var r in proof.Roots)
         {
@@ -206,7 +188,7 @@ public static class DesignJsonReport
         }
 
         w.WriteEndArray();
-        Complexes(w, "zeros", proof.ClosedLoopZeros);
+        JsonNumbers.WriteComplexArray(w, "zeros", proof.ClosedLoopZeros);
         w.WriteBoolean("targetConfirmed", proof.TargetConfirmed);
         Number(w, "targetResidual", proof.UsesPade ? proof.TargetResidualExactDelay : proof.TargetResidual);
         Number(w, "targetRootDistance", proof.TargetRootDistance);
@@ -239,29 +221,4 @@ public static class DesignJsonReport
         CompensatorKind.LeadLag => "lead-lag",
         _ => kind.ToString().ToLowerInvariant(),
     };
-
-    private static void Numbers(Utf8JsonWriter w, string name, IEnumerable<double> xs)
-    {
-        w.WriteStartArray(name);
-        foreach (var x in xs)
-        {
-            w.WriteNumberValue(x);
-        }
-
-        w.WriteEndArray();
-    }
-
-    private static void Complexes(Utf8JsonWriter w, string name, IEnumerable<Complex> zs)
-    {
-        w.WriteStartArray(name);
-        foreach (var z in zs)
-        {
-            w.WriteStartObject();
-            w.WriteNumber("re", z.Real);
-            w.WriteNumber("im", z.Imaginary);
-            w.WriteEndObject();
-        }
-
-        w.WriteEndArray();
-    }
 }

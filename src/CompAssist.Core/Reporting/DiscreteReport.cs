@@ -66,34 +66,10 @@ public static class DiscreteReport
             w.WriteString("method", MethodName(result.Method));
             w.WriteNumber("sampleTime", d.SampleTime);
             w.WriteString("convention", "C(z) = (b0 + b1 z^-1 + ...)/(1 + a1 z^-1 + ...); u[k] = sum b_i e[k-i] - sum_{i>=1} a_i u[k-i]");
-            w.WriteStartArray("numerator");
-            foreach (var b in d.Numerator)
-            {
-                w.WriteNumberValue(b);
-            }
-
-            w.WriteEndArray();
-            w.WriteStartArray("denominator");
-            foreach (var a in d.Denominator)
-            {
-                w.WriteNumberValue(a);
-            }
-
-            w.WriteEndArray();
-            foreach (var (name, roots) in new[] { ("zeros", d.Zeros), ("poles", d.Poles) })
-            {
-                w.WriteStartArray(name);
-                foreach (var r in roots)
-                {
-                    w.WriteStartObject();
-                    w.WriteNumber("re", r.Real);
-                    w.WriteNumber("im", r.Imaginary);
-                    w.WriteEndObject();
-                }
-
-                w.WriteEndArray();
-            }
-
+            JsonNumbers.WriteArray(w, "numerator", d.Numerator);
+            JsonNumbers.WriteArray(w, "denominator", d.Denominator);
+            JsonNumbers.WriteComplexArray(w, "zeros", d.Zeros);
+            JsonNumbers.WriteComplexArray(w, "poles", d.Poles);
             JsonNumbers.Write(w, "dcGain", d.DcGain);
             w.WriteString("gainMatching", result.GainMatching);
             w.WriteStartArray("warnings");

@@ -29,24 +29,10 @@ public static class Synthesizer
         };
     }
 
-    private static Outcome<Design> Lag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
-    {
-        var check = CheckTarget(loop, target);
-        if (check is not null)
-        {
-            return Outcome<Design>.Refused(check);
-        }
-
-        var uncompensated = PointAnalysis.At(loop, target.Point);
-        if (Math.Abs(uncompensated.AngleDeficiencyDegrees) > slow.AngleBudgetDegrees)
-        {
-            return Outcome<Design>.Refused(
-                $"The target needs {F(uncompensated.AngleDeficiencyDegrees)}° of angle; a lag alone only fixes the steady state and must leave the transient (the locus) nearly unchanged",
-                "Use lead-lag (lead for the transient, lag for the error), or move the target onto the uncompensated locus.");
-        }
-
-        return Finish(loop, target, uncompensated, CompensatorKind.Lag, null, SlowZeroDesigner.Add(loop, [], target, requirement, slow, integrator: false), []);
-    }
+    private static Outcome<Design> Lag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement) =>
+        SlowOnly(loop, target, slow, requirement, CompensatorKind.Lag,
+            "a lag alone only fixes the steady state and must leave the transient (the locus) nearly unchanged",
+            "Use lead-lag (lead for the transient, lag for the error), or move the target onto the uncompensated locus.");
 
     private static Outcome<Design> LeadLag(Loop loop, TargetPole target, LeadOptions lead, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
@@ -60,7 +46,13 @@ public static class Synthesizer
         return Finish(loop, target, leadDesign.Value.Uncompensated, CompensatorKind.LeadLag, lead.Placement, result, leadDesign.Value.Notes);
     }
 
-    private static Outcome<Design> Pi(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
+    private static Outcome<Design> Pi(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement) =>
+        SlowOnly(loop, target, slow, requirement, CompensatorKind.PI,
+            "a PI only adds an integrator and must leave the locus nearly unchanged near the target",
+            "Use a PID (its derivative zero supplies the angle), or move the target onto the uncompensated locus.");
+
+    /// <summary>A lag or a PI on its own: valid only where the target is (nearly) on the uncompensated locus.</summary>
+    private static Outcome<Design> SlowOnly(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement, CompensatorKind kind, string why, string hint)
     {
         var check = CheckTarget(loop, target);
         if (check is not null)
@@ -71,12 +63,11 @@ public static class Synthesizer
         var uncompensated = PointAnalysis.At(loop, target.Point);
         if (Math.Abs(uncompensated.AngleDeficiencyDegrees) > slow.AngleBudgetDegrees)
         {
-            return Outcome<Design>.Refused(
-                $"The target needs {F(uncompensated.AngleDeficiencyDegrees)}° of angle; a PI only adds an integrator and must leave the locus nearly unchanged near the target",
-                "Use a PID (its derivative zero supplies the angle), or move the target onto the uncompensated locus.");
+            return Outcome<Design>.Refused($"The target needs {F(uncompensated.AngleDeficiencyDegrees)}° of angle; {why}", hint);
         }
 
-        return Finish(loop, target, uncompensated, CompensatorKind.PI, null, SlowZeroDesigner.Add(loop, [], target, requirement, slow, integrator: true), []);
+        var integrator = kind == CompensatorKind.PI;
+        return Finish(loop, target, uncompensated, kind, null, SlowZeroDesigner.Add(loop, [], target, requirement, slow, integrator), []);
     }
 
     private static Outcome<Design> Pd(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
