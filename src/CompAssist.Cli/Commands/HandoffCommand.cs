@@ -17,10 +17,11 @@ internal static class HandoffCommand
         var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward.", DefaultValueFactory = _ => "tustin" };
         var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
+        var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; analysis only).", DefaultValueFactory = _ => "double" };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
         var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");
         settings.AddTo(command);
-        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, name })
+        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, name })
         {
             command.Options.Add(option);
         }
@@ -36,6 +37,12 @@ internal static class HandoffCommand
             if (!Enum.TryParse<DiscretizationMethod>(parse.GetValue(method), ignoreCase: true, out var m) || !Enum.IsDefined(m))
             {
                 stderr.WriteLine($"error: --method '{parse.GetValue(method)}' is not a method. Use tustin, prewarp, matched, zoh or backward.");
+                return CliApplication.InputError;
+            }
+
+            if (NumberFormat.TryParse(parse.GetValue(format)!) is not { } numberFormat)
+            {
+                stderr.WriteLine($"error: --format '{parse.GetValue(format)}' is not a number format. Use double, float or fixed8…fixed32.");
                 return CliApplication.InputError;
             }
 
@@ -57,6 +64,7 @@ internal static class HandoffCommand
                 Method = m,
                 PrewarpFrequency = parse.GetValue(prewarp),
                 ComputationDelay = parse.GetValue(delay),
+                Format = numberFormat,
                 Name = parse.GetValue(name)!,
             };
             var package = HandoffPackage.Build(run.Report!, options, input.Name);
@@ -91,7 +99,12 @@ internal static class HandoffCommand
             stdout.WriteLine($"wrote {package.Value.Files.Count + 1} files into {folder}");
             stdout.WriteLine($"  sample time: {package.Value.SampleTimeNote}");
             stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");
-            foreach (var w in package.Value.Discretization.Warnings.Concat(proof.Warnings))
+            if (numberFormat.Kind == NumberFormatKind.Fixed)
+            {
+                stdout.WriteLine($"  {numberFormat}: quantization analysed and the loop re-proved with the rounded coefficients; no fixed-point C code is generated yet.");
+            }
+
+            foreach (var w in package.Value.Discretization.Warnings.Concat(package.Value.Quantization.Warnings).Concat(proof.Warnings))
             {
                 stdout.WriteLine($"  ! {w}");
             }

@@ -125,6 +125,12 @@ public static class Discretizer
             }
         }
 
+        if (g.RelativeDegree > 0)
+        {
+            // A strictly proper G has no direct feedthrough: the zⁿ coefficient is exactly zero.
+            coefficients[n] = 0;
+        }
+
         var num = Numerics.Polynomial.FromAscending(coefficients);
         var zeros = num.Degree > 0 ? Numerics.RootFinder.Find(num).Roots : [];
         return DiscreteTransferFunction.FromFactors(num.Leading, zeros, poles, t);

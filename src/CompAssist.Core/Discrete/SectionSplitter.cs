@@ -94,6 +94,33 @@ public static class SectionSplitter
         return output;
     }
 
+    /// <summary>The cascade run in single precision with the same operation order as the exported float code.</summary>
+    public static double[] FilterSingle(IReadOnlyList<Section> sections, IReadOnlyList<double> input)
+    {
+        ArgumentNullException.ThrowIfNull(sections);
+        ArgumentNullException.ThrowIfNull(input);
+        var s1 = new float[sections.Count];
+        var s2 = new float[sections.Count];
+        var output = new double[input.Count];
+        for (var k = 0; k < input.Count; k++)
+        {
+            var x = (float)input[k];
+            for (var i = 0; i < sections.Count; i++)
+            {
+                var q = sections[i];
+                float b0 = (float)q.B0, b1 = (float)q.B1, b2 = (float)q.B2, a1 = (float)q.A1, a2 = (float)q.A2;
+                var y = (b0 * x) + s1[i];
+                s1[i] = (b1 * x) - (a1 * y) + s2[i];
+                s2[i] = (b2 * x) - (a2 * y);
+                x = y;
+            }
+
+            output[k] = x;
+        }
+
+        return output;
+    }
+
     /// <summary>Π(1 − rᵢ z⁻¹) as [c0, c1, c2] in ascending powers of z⁻¹ (at most two roots).</summary>
     private static double[] Coefficients(List<Complex> roots)
     {

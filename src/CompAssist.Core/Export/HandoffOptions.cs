@@ -17,6 +17,9 @@ public sealed record HandoffOptions
     /// <summary>Whether the firmware applies the command one sample after reading the measurement.</summary>
     public bool ComputationDelay { get; init; }
 
+    /// <summary>How the firmware stores the coefficients (double, float, or fixed point for the analysis).</summary>
+    public NumberFormat Format { get; init; } = NumberFormat.Double;
+
     /// <summary>C identifier for the exported controller.</summary>
     public string Name { get; init; } = "compassist_ctrl";
 }

@@ -18,13 +18,15 @@ namespace CompAssist.Core.Export;
 /// <param name="Files">File name → content.</param>
 /// <param name="Discretization">The discretization used.</param>
 /// <param name="Sections">The implemented sections.</param>
-/// <param name="Proof">The sampled loop's proof.</param>
+/// <param name="Proof">The sampled loop's proof, with the coefficients as stored.</param>
+/// <param name="Quantization">What storing the coefficients in the chosen format does.</param>
 /// <param name="SampleTimeNote">How the sample time was chosen.</param>
 public sealed record HandoffPackage(
     ImmutableDictionary<string, string> Files,
     Discretizer.Result Discretization,
     ImmutableArray<Section> Sections,
     SampledLoopProof Proof,
+    QuantizationReport Quantization,
     string SampleTimeNote)
 {
     /// <summary>
@@ -86,7 +88,8 @@ public sealed record HandoffPackage(
 
         var d = discrete.Value.Discrete;
         var sections = SectionSplitter.Split(d);
-        var proof = SampledLoop.Prove(loop, d, options.ComputationDelay);
+        var quantization = Quantizer.Quantize(d, sections, options.Format);
+        var proof = SampledLoop.Prove(loop, quantization.Quantized, options.ComputationDelay);
         var continuous = report.Check.Step;
         if (proof.Stable && (proof.Metrics.OvershootPercent > continuous.OvershootPercent + 5 || proof.Metrics.SettlingTime2Percent > 1.5 * continuous.SettlingTime2Percent))
         {
@@ -96,27 +99,28 @@ public sealed record HandoffPackage(
             };
         }
         var origin = $"{(caseName.Length > 0 ? caseName + ": " : string.Empty)}C(s) = {c} for G(s) = {loop.Plant}, H(s) = {loop.Feedback}";
-        (string header, string source) code;
-        try
-        {
-            code = CCodeGenerator.Generate(options.Name, sections, t, origin);
-        }
-        catch (ArgumentException)
+        var files = ImmutableDictionary.CreateBuilder<string, string>();
+        if (options.Name.Length == 0 || !(char.IsAsciiLetter(options.Name[0]) || options.Name[0] == '_') || !options.Name.All(ch => char.IsAsciiLetterOrDigit(ch) || ch == '_'))
         {
             return Outcome<HandoffPackage>.Refused($"'{options.Name}' is not a C identifier", "Use letters, digits and underscores, starting with a letter.");
         }
 
-        var vectors = Vectors(sections);
-        var files = ImmutableDictionary.CreateBuilder<string, string>();
-        files.Add($"{options.Name}.h", code.header);
-        files.Add($"{options.Name}.c", code.source);
-        files.Add($"{options.Name}.json", Json(options, discrete.Value, sections, proof, origin, note));
+        var stored = quantization.Sections.Select(q => q.Section).ToImmutableArray();
+        if (options.Format.Kind != NumberFormatKind.Fixed)
+        {
+            var (header, source) = CCodeGenerator.Generate(options.Name, stored, t, origin, options.Format);
+            files.Add($"{options.Name}.h", header);
+            files.Add($"{options.Name}.c", source);
+        }
+
+        var vectors = Vectors(stored, options.Format);
+        files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note));
         files.Add($"{options.Name}-vectors.csv", vectors);
-        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, sections, proof, origin, note, caseName));
-        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, sections, proof, note));
+        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, caseName));
+        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note));
     }
 
-    private static string Vectors(ImmutableArray<Section> sections)
+    private static string Vectors(ImmutableArray<Section> sections, NumberFormat format)
     {
         var random = new Random(20261201);
         var runs = new (string Name, double[] Input)[]
@@ -127,12 +131,12 @@ public sealed record HandoffPackage(
         };
         var sb = new StringBuilder();
         sb.AppendLine("# CompAssist test vectors: feed 'input' to <name>_step from <name>_init, one row per sample; 'expected' is the");
-        sb.AppendLine("# double-precision output of the same section cascade. Runs restart from rest. Units: input = control error,");
+        sb.AppendLine($"# output of the same section cascade with the coefficients as stored ({format}; fixed point: the real-valued cascade of the rounded coefficients). Runs restart from rest. Units: input = control error,");
         sb.AppendLine("# output = actuator command. The controller is not a safety function; see the report's caution.");
         sb.AppendLine("run,k,input,expected");
         foreach (var (name, input) in runs)
         {
-            var output = SectionSplitter.Filter(sections, input);
+            var output = format.Kind == NumberFormatKind.Float ? SectionSplitter.FilterSingle(sections, input) : SectionSplitter.Filter(sections, input);
             for (var k = 0; k < input.Length; k++)
             {
                 sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]:R},{output[k]:R}");
@@ -142,7 +146,7 @@ public sealed record HandoffPackage(
         return sb.ToString();
     }
 
-    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, string origin, string note)
+    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note)
     {
         using var stream = new MemoryStream();
         using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
@@ -157,6 +161,26 @@ public sealed record HandoffPackage(
             w.WriteString("units", "input: control error in the measurement's units; output: actuator command in the compensator's output units");
             w.WriteString("convention", "C(z) = (b0 + b1 z^-1 + ...)/(1 + a1 z^-1 + ...); sections in transposed direct form II: y = b0 x + s1; s1 = b1 x - a1 y + s2; s2 = b2 x - a2 y");
             w.WriteBoolean("computationDelay", options.ComputationDelay);
+            w.WriteString("format", options.Format.ToString());
+            w.WriteStartObject("quantization");
+            w.WriteNumber("largestPoleShift", quantization.LargestPoleShift);
+            w.WriteNumber("largestZeroShift", quantization.LargestZeroShift);
+            JsonNumbers.Write(w, "dcGainChangePercent", quantization.DcGainChangePercent);
+            w.WriteStartArray("fractionalBits");
+            foreach (var q in quantization.Sections)
+            {
+                w.WriteNumberValue(q.FractionalBits);
+            }
+
+            w.WriteEndArray();
+            w.WriteStartArray("warnings");
+            foreach (var warning in quantization.Warnings)
+            {
+                w.WriteStringValue(warning);
+            }
+
+            w.WriteEndArray();
+            w.WriteEndObject();
             JsonNumbers.WriteArray(w, "numerator", d.Numerator);
             JsonNumbers.WriteArray(w, "denominator", d.Denominator);
             w.WriteStartArray("sections");
@@ -185,7 +209,7 @@ public sealed record HandoffPackage(
         return Encoding.UTF8.GetString(stream.ToArray());
     }
 
-    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, string origin, string note, string caseName)
+    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, string caseName)
     {
         var d = discrete.Discrete;
         var m = report.Check.Step;
@@ -198,7 +222,8 @@ public sealed record HandoffPackage(
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Source design: {origin}");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Sample time: {F(d.SampleTime)} s ({note})");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Method: {DiscreteReport.MethodName(discrete.Method)} ({discrete.GainMatching}); computation delay {(options.ComputationDelay ? "one sample" : "none")}");
-        sb.AppendLine("- Form: cascaded sections in transposed direct form II, double precision; saturation and anti-windup are not included");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Form: cascaded sections in transposed direct form II; coefficients stored as {options.Format}{(options.Format.Kind == NumberFormatKind.Fixed ? $" (fractional bits per section: {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; round to nearest, saturate; no C code is generated for fixed point yet)" : string.Empty)}; saturation and anti-windup are not included");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Quantization: largest pole shift {F(quantization.LargestPoleShift)}, largest zero shift {F(quantization.LargestZeroShift)}, DC gain change {F(quantization.DcGainChangePercent)} %; the sampled loop below uses the stored coefficients");
         sb.AppendLine("- Units: input = control error (measurement units), output = actuator command");
         sb.AppendLine();
         sb.AppendLine("## Sampled loop (plant by zero-order hold)");
@@ -217,7 +242,7 @@ public sealed record HandoffPackage(
             sb.AppendLine(CultureInfo.InvariantCulture, $"- {TransferFunctionFormatter.Complex(z, 8)}  →  {TransferFunctionFormatter.Complex(e, 5)}");
         }
 
-        foreach (var w in discrete.Warnings.Concat(proof.Warnings))
+        foreach (var w in discrete.Warnings.Concat(quantization.Warnings).Concat(proof.Warnings))
         {
             sb.AppendLine();
             sb.AppendLine("> **Warning.** " + w);
@@ -237,7 +262,7 @@ public sealed record HandoffPackage(
         }
 
         sb.AppendLine();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: `{options.Name}.h`, `{options.Name}.c` (C99), `{options.Name}.json`, `{options.Name}-vectors.csv`, `{options.Name}-step.svg` (continuous and sampled step).");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: {(options.Format.Kind == NumberFormatKind.Fixed ? string.Empty : $"`{options.Name}.h`, `{options.Name}.c` (C99, {options.Format}), ")}`{options.Name}.json`, `{options.Name}-vectors.csv`, `{options.Name}-step.svg` (continuous and sampled step).");
         sb.AppendLine();
         sb.AppendLine("## The continuous design and its proof");
         sb.AppendLine();

@@ -98,6 +98,40 @@ public class CCodeGeneratorTests
     }
 
     [Fact]
+    public void Generate_Float_CompilesAndMatchesSinglePrecisionReference()
+    {
+        var c = ExpressionParser.Parse("20(s+0.5)(s+3)/((s+0.05)(s+30))", requireProper: false).Value!;
+        var d = Discretizer.Discretize(c, 0.002, DiscretizationMethod.Tustin).Value!.Discrete;
+        var stored = Quantizer.Quantize(d, SectionSplitter.Split(d), NumberFormat.Float).Sections.Select(q => q.Section).ToList();
+        var input = Enumerable.Range(0, 200).Select(k => Math.Sin(0.05 * k)).ToList();
+        var reference = SectionSplitter.FilterSingle(stored, input);
+        var directory = Directory.CreateTempSubdirectory("compassist-f-").FullName;
+        try
+        {
+            var (header, source) = CCodeGenerator.Generate("f_ctrl", stored, 0.002, "test", NumberFormat.Float);
+            Assert.Contains("float s1[", header, StringComparison.Ordinal);
+            File.WriteAllText(Path.Combine(directory, "f_ctrl.h"), header);
+            File.WriteAllText(Path.Combine(directory, "f_ctrl.c"), source);
+            var values = string.Join(",\n", input.Select(v => ((float)v).ToString("0.0########E+0", CultureInfo.InvariantCulture) + "f"));
+            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"f_ctrl.h\"\nstatic const float input[] = {\n" + values + "\n};\nint main(void)\n{\n    f_ctrl_state s;\n    unsigned i;\n    f_ctrl_init(&s);\n    for (i = 0; i < sizeof input / sizeof input[0]; ++i) {\n        printf(\"%.9g\\n\", (double)f_ctrl_step(&s, input[i]));\n    }\n    return 0;\n}\n");
+            var compile = Run(Compiler(), "-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o test main.c f_ctrl.c", directory);
+            Assert.True(compile.Code == 0, compile.Error);
+            var outputs = Run(Path.Combine(directory, "test"), string.Empty, directory).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
+            var scale = reference.Max(Math.Abs);
+            for (var k = 0; k < input.Count; k++)
+            {
+                // Float rounding accumulates through the slow pole near z = 1; 1e-4 of the signal is far below any
+                // coefficient-quantization effect and far above double rounding.
+                Tolerance.Close(reference[k], outputs[k], 1e-4, 1e-4 * scale, $"float k={k}");
+            }
+        }
+        finally
+        {
+            Directory.Delete(directory, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Generate_BadName_Throws()
     {
         Assert.Throws<ArgumentException>(() => CCodeGenerator.Generate("9lives", [], 0.01, "x"));
