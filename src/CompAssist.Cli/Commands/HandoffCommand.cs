@@ -18,10 +18,11 @@ internal static class HandoffCommand
         var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
         var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; analysis only).", DefaultValueFactory = _ => "double" };
+        var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping or back-calculation.", DefaultValueFactory = _ => "clamping" };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
         var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");
         settings.AddTo(command);
-        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, name })
+        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, antiWindup, name })
         {
             command.Options.Add(option);
         }
@@ -46,6 +47,18 @@ internal static class HandoffCommand
                 return CliApplication.InputError;
             }
 
+            var scheme = parse.GetValue(antiWindup)!.ToLowerInvariant() switch
+            {
+                "clamping" => AntiWindup.Clamping,
+                "back-calculation" => AntiWindup.BackCalculation,
+                _ => (AntiWindup?)null,
+            };
+            if (scheme is null)
+            {
+                stderr.WriteLine($"error: --anti-windup '{parse.GetValue(antiWindup)}' is not a scheme. Use clamping or back-calculation.");
+                return CliApplication.InputError;
+            }
+
             var input = DesignCommand.Input(parse, settings, stderr, out var code);
             if (input is null)
             {
@@ -65,6 +78,7 @@ internal static class HandoffCommand
                 PrewarpFrequency = parse.GetValue(prewarp),
                 ComputationDelay = parse.GetValue(delay),
                 Format = numberFormat,
+                AntiWindup = scheme.Value,
                 Name = parse.GetValue(name)!,
             };
             var package = HandoffPackage.Build(run.Report!, options, input.Name);

@@ -20,6 +20,9 @@ public sealed record HandoffOptions
     /// <summary>How the firmware stores the coefficients (double, float, or fixed point for the analysis).</summary>
     public NumberFormat Format { get; init; } = NumberFormat.Double;
 
+    /// <summary>Anti-windup of the exported PID (PI, PD, PID designs).</summary>
+    public AntiWindup AntiWindup { get; init; } = AntiWindup.Clamping;
+
     /// <summary>C identifier for the exported controller.</summary>
     public string Name { get; init; } = "compassist_ctrl";
 }

@@ -65,8 +65,13 @@ public sealed record HandoffPackage(
         }
         else if (double.IsFinite(wc))
         {
-            t = RecommendedSampleTime(wc);
-            note = $"recommended: the sampling frequency 2π/T at least 20× the gain crossover {F(wc)} rad/s, rounded down: T = {F(t)} s";
+            // Also keep the compensator's own fastest corner well below Nyquist (sampling at least 10× it).
+            var fastest = c.Poles.Concat(c.Zeros).Select(r => r.Magnitude).DefaultIfEmpty(0).Max();
+            var basis = Math.Max(wc, fastest / 2);
+            t = RecommendedSampleTime(basis);
+            note = basis > wc
+                ? $"recommended: the sampling frequency 2π/T at least 10× the compensator's fastest corner {F(fastest)} rad/s (which is beyond 20× the gain crossover {F(wc)} rad/s), rounded down: T = {F(t)} s"
+                : $"recommended: the sampling frequency 2π/T at least 20× the gain crossover {F(wc)} rad/s, rounded down: T = {F(t)} s";
         }
         else
         {
@@ -114,6 +119,25 @@ public sealed record HandoffPackage(
         }
 
         var vectors = Vectors(stored, options.Format);
+        var pidNote = string.Empty;
+        if (report.Design.Compensator.Pid is { } forms && options.Format.Kind == NumberFormatKind.Double)
+        {
+            var limit = report.Check.EffortFigures.Limit;
+            var pid = new PidImplementation(forms, t, -(limit ?? 1e9), limit ?? 1e9, options.AntiWindup);
+            var (pidHeader, pidSource) = PidCodeGenerator.Generate(options.Name + "_pid", pid, origin);
+            files.Add($"{options.Name}_pid.h", pidHeader);
+            files.Add($"{options.Name}_pid.c", pidSource);
+            files.Add($"{options.Name}_pid-vectors.csv", PidVectors(pid, loop, report.Check.EffortFigures.ReferenceStep * 3));
+            pidNote = limit is null
+                ? "No actuator limit was given: the PID's output limits are ±1e9, so anti-windup never acts. Give --actuator-limit."
+                : $"PID form: positional, derivative on the measurement, output limits ±{F(limit.Value)}, anti-windup {options.AntiWindup}.";
+        }
+
+        if (pidNote.Length > 0)
+        {
+            note += " " + pidNote;
+        }
+
         files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note));
         files.Add($"{options.Name}-vectors.csv", vectors);
         files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, caseName));
@@ -141,6 +165,28 @@ public sealed record HandoffPackage(
             {
                 sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]:R},{output[k]:R}");
             }
+        }
+
+        return sb.ToString();
+    }
+
+    /// <summary>A saturating closed-loop run of the PID on the ZOH plant: reference, measurement and expected output per sample.</summary>
+    private static string PidVectors(PidImplementation pid, Loop loop, double reference)
+    {
+        var twin = new PidImplementation(pid.Forms, pid.SampleTime, pid.UMin, pid.UMax, pid.AntiWindup, pid.TrackingTime);
+        var plant = Discretizer.ZeroOrderHold(loop.Plant.WithoutDelay(), pid.SampleTime);
+        var sb = new StringBuilder();
+        sb.AppendLine("# CompAssist PID test vector: a saturating closed-loop run on the ZOH plant. Feed reference and measurement to");
+        sb.AppendLine("# <name>_pid_step from <name>_pid_init, one row per sample; 'expected' is the command. Not a safety function.");
+        sb.AppendLine("k,reference,measurement,expected");
+        var u = new List<double>();
+        var y = 0.0;
+        for (var k = 0; k < 400; k++)
+        {
+            var command = twin.Step(reference, y);
+            sb.AppendLine(CultureInfo.InvariantCulture, $"{k},{reference:R},{y:R},{command:R}");
+            u.Add(command);
+            y = plant.Filter(u)[^1];
         }
 
         return sb.ToString();

@@ -74,6 +74,47 @@ public class HandoffCommandTests
     }
 
     [Fact]
+    public void Handoff_PidCase_ExportsPidCodeAndSaturatingVectors()
+    {
+        var folder = Directory.CreateTempSubdirectory("compassist-handoff-pid-").FullName;
+        try
+        {
+            var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "heater-stage.toml");
+            var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--name", "heater", "--anti-windup", "back-calculation");
+            Assert.True(code == 0, error + output);
+            Assert.Contains("anti-windup: BackCalculation", File.ReadAllText(Path.Combine(folder, "heater_pid.h")), StringComparison.Ordinal);
+            var rows = File.ReadAllLines(Path.Combine(folder, "heater_pid-vectors.csv")).Where(l => char.IsAsciiDigit(l[0])).Select(l => double.Parse(l.Split(',')[3], CultureInfo.InvariantCulture)).ToList();
+            Assert.Equal(400, rows.Count);
+            Assert.Contains(100.0, rows);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
+    public void Handoff_FixedPoint_AnalysesWithoutCode()
+    {
+        var folder = Directory.CreateTempSubdirectory("compassist-handoff-fixed-").FullName;
+        try
+        {
+            var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
+            var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.001", "--format", "fixed16", "--name", "belt");
+            Assert.True(code is 0 or 3, error);
+            Assert.Contains("fixed16: quantization analysed", output, StringComparison.Ordinal);
+            Assert.False(File.Exists(Path.Combine(folder, "belt.c")));
+            using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "belt.json")));
+            Assert.Equal("fixed16", json.RootElement.GetProperty("format").GetString());
+            Assert.True(json.RootElement.GetProperty("quantization").GetProperty("largestPoleShift").GetDouble() > 0);
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Handoff_ImproperPid_RefusedWithFix()
     {
         var folder = Path.Combine(Path.GetTempPath(), $"compassist-never-{Guid.NewGuid():N}");

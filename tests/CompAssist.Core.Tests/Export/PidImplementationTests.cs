@@ -1,0 +1,115 @@
+using System.Diagnostics;
+using System.Globalization;
+using CompAssist.Core.Discrete;
+using CompAssist.Core.Export;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Tests.Support;
+
+namespace CompAssist.Core.Tests.Export;
+
+public class PidImplementationTests
+{
+    private static readonly PidForms Gains = PidForms.FromParallel(kp: 2.0, ki: 1.5, kd: 0.4, tf: 0.04);
+
+    /// <summary>Closed loop with the plant 1/(s(s+1))·(s+1)… here 1/((s+1)(0.5s+1)) sampled by ZOH and a saturating actuator.</summary>
+    private static (double Overshoot, double[] U) Closed(PidImplementation pid, double reference, int samples = 3000)
+    {
+        var plant = Discretizer.ZeroOrderHold(ExpressionParser.ParseProper("2/((s+1)(s+2))").Value!, pid.SampleTime);
+        var u = new double[samples];
+        var y = new double[samples];
+        var peak = 0.0;
+        for (var k = 0; k < samples; k++)
+        {
+            var measured = k == 0 ? 0.0 : y[k - 1];
+            u[k] = pid.Step(reference, measured);
+            y[k] = plant.Filter(u.Take(k + 1).ToArray())[k];
+            peak = Math.Max(peak, y[k]);
+        }
+
+        return (100 * (peak - reference) / reference, u);
+    }
+
+    [Fact]
+    public void AntiWindup_Clamping_CutsOvershootOfASaturatingStep()
+    {
+        // With the actuator saturating for a large step, an unprotected integral winds up and overshoots;
+        // conditional integration and back-calculation both keep the overshoot lower (common practice).
+        var none = Closed(new PidImplementation(Gains, 0.01, -1.2, 1.2, AntiWindup.None), 1.0, 1500);
+        var clamping = Closed(new PidImplementation(Gains, 0.01, -1.2, 1.2, AntiWindup.Clamping), 1.0, 1500);
+        var back = Closed(new PidImplementation(Gains, 0.01, -1.2, 1.2, AntiWindup.BackCalculation), 1.0, 1500);
+        Assert.True(none.U.Max() <= 1.2 && none.U.Contains(1.2), "the actuator saturates");
+        Assert.True(clamping.Overshoot < none.Overshoot - 1, $"clamping {clamping.Overshoot} vs none {none.Overshoot}");
+        Assert.True(back.Overshoot < none.Overshoot - 1, $"back-calculation {back.Overshoot} vs none {none.Overshoot}");
+    }
+
+    [Fact]
+    public void Step_DerivativeOnMeasurement_NoKickOnReferenceStep()
+    {
+        var pid = new PidImplementation(Gains, 0.01, -100, 100, AntiWindup.Clamping);
+        var u0 = pid.Step(1.0, 0.0);
+        Tolerance.Close(Gains.Kp * 1.0, u0, 1e-15, what: "first output is Kp·e (no derivative of the reference)");
+    }
+
+    [Fact]
+    public void Incremental_UnsaturatedMatchesPositional()
+    {
+        var positional = new PidImplementation(Gains, 0.01, -1e9, 1e9, AntiWindup.None);
+        var incremental = new PidImplementation(Gains, 0.01, -1e9, 1e9, AntiWindup.None, incremental: true);
+        var random = new Random(3);
+        for (var k = 0; k < 500; k++)
+        {
+            var r = Math.Sin(0.01 * k);
+            var y = (random.NextDouble() - 0.5) * 0.1;
+            var a = positional.Step(r, y);
+            var b = incremental.Step(r, y);
+            Tolerance.Close(a, b, 1e-9, 1e-9, $"k={k}");
+        }
+    }
+
+    [Theory]
+    [InlineData(AntiWindup.Clamping, false)]
+    [InlineData(AntiWindup.BackCalculation, false)]
+    [InlineData(AntiWindup.None, true)]
+    public void Generate_CompilesAndMatchesReferenceOnASaturatingRun(AntiWindup scheme, bool incremental)
+    {
+        var reference = new PidImplementation(Gains, 0.01, -1.0, 1.0, scheme, incremental: incremental);
+        var twin = new PidImplementation(Gains, 0.01, -1.0, 1.0, scheme, incremental: incremental);
+        var random = new Random(11);
+        var rows = Enumerable.Range(0, 400).Select(k => (R: k < 200 ? 5.0 : -3.0, Y: (0.01 * k) + ((random.NextDouble() - 0.5) * 0.05))).ToList();
+        var expected = rows.Select(row => reference.Step(row.R, row.Y)).ToList();
+        Assert.Contains(1.0, expected);
+        Assert.Contains(-1.0, expected);
+        _ = twin;
+
+        var directory = Directory.CreateTempSubdirectory("compassist-pid-").FullName;
+        try
+        {
+            var (header, source) = PidCodeGenerator.Generate("pid_ctrl", reference, "test");
+            File.WriteAllText(Path.Combine(directory, "pid_ctrl.h"), header);
+            File.WriteAllText(Path.Combine(directory, "pid_ctrl.c"), source);
+            var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", pid_ctrl_step(&s, {r.R.ToString("R", CultureInfo.InvariantCulture)}, {r.Y.ToString("R", CultureInfo.InvariantCulture)}));"));
+            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"pid_ctrl.h\"\nint main(void)\n{\n    pid_ctrl_state s;\n    pid_ctrl_init(&s);\n" + calls + "\n    return 0;\n}\n");
+            var compiler = new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.First(File.Exists);
+            using (var compile = Process.Start(new ProcessStartInfo(compiler, "-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o test main.c pid_ctrl.c") { WorkingDirectory = directory, RedirectStandardError = true })!)
+            {
+                var error = compile.StandardError.ReadToEnd();
+                compile.WaitForExit();
+                Assert.True(compile.ExitCode == 0, error);
+            }
+
+            using var run = Process.Start(new ProcessStartInfo(Path.Combine(directory, "test")) { WorkingDirectory = directory, RedirectStandardOutput = true })!;
+            var outputs = run.StandardOutput.ReadToEnd().Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
+            run.WaitForExit();
+            Assert.Equal(expected.Count, outputs.Count);
+            for (var k = 0; k < expected.Count; k++)
+            {
+                Tolerance.Close(expected[k], outputs[k], 1e-12, 1e-15, $"k={k}");
+            }
+        }
+        finally
+        {
+            Directory.Delete(directory, recursive: true);
+        }
+    }
+}
