@@ -127,7 +127,9 @@ public sealed record HandoffPackage(
             var (pidHeader, pidSource) = PidCodeGenerator.Generate(options.Name + "_pid", pid, origin);
             files.Add($"{options.Name}_pid.h", pidHeader);
             files.Add($"{options.Name}_pid.c", pidSource);
-            files.Add($"{options.Name}_pid-vectors.csv", PidVectors(pid, loop, report.Check.EffortFigures.ReferenceStep * 3));
+            // A reference large enough that the first command (Kp·r, derivative on the measurement) saturates.
+            var saturating = Math.Max(3 * report.Check.EffortFigures.ReferenceStep, limit is { } l && forms.Kp != 0 ? 2 * l / Math.Abs(forms.Kp) : 0);
+            files.Add($"{options.Name}_pid-vectors.csv", PidVectors(pid, loop, saturating));
             pidNote = limit is null
                 ? "No actuator limit was given: the PID's output limits are ±1e9, so anti-windup never acts. Give --actuator-limit."
                 : $"PID form: positional, derivative on the measurement, output limits ±{F(limit.Value)}, anti-windup {options.AntiWindup}.";
