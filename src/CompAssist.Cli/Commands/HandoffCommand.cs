@@ -17,12 +17,13 @@ internal static class HandoffCommand
         var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward.", DefaultValueFactory = _ => "tustin" };
         var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
-        var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; analysis only).", DefaultValueFactory = _ => "double" };
+        var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; code up to 24 bits).", DefaultValueFactory = _ => "double" };
+        var signalBits = new Option<int?>("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default half the word)." };
         var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping or back-calculation.", DefaultValueFactory = _ => "clamping" };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
         var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");
         settings.AddTo(command);
-        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, antiWindup, name })
+        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, signalBits, antiWindup, name })
         {
             command.Options.Add(option);
         }
@@ -78,6 +79,7 @@ internal static class HandoffCommand
                 PrewarpFrequency = parse.GetValue(prewarp),
                 ComputationDelay = parse.GetValue(delay),
                 Format = numberFormat,
+                SignalFractionBits = parse.GetValue(signalBits),
                 AntiWindup = scheme.Value,
                 Name = parse.GetValue(name)!,
             };
@@ -115,7 +117,7 @@ internal static class HandoffCommand
             stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");
             if (numberFormat.Kind == NumberFormatKind.Fixed)
             {
-                stdout.WriteLine($"  {numberFormat}: quantization analysed and the loop re-proved with the rounded coefficients; no fixed-point C code is generated yet.");
+                stdout.WriteLine($"  {numberFormat}: quantization analysed and the loop re-proved with the rounded coefficients{(numberFormat.WordBits <= FixedPointCascade.MaxWordBits ? "; bit-exact fixed-point C and integer vectors written" : $"; no C code above {FixedPointCascade.MaxWordBits}-bit words")}.");
             }
 
             foreach (var w in package.Value.Discretization.Warnings.Concat(package.Value.Quantization.Warnings).Concat(proof.Warnings))

@@ -20,6 +20,9 @@ public sealed record HandoffOptions
     /// <summary>How the firmware stores the coefficients (double, float, or fixed point for the analysis).</summary>
     public NumberFormat Format { get; init; } = NumberFormat.Double;
 
+    /// <summary>Fractional bits of the fixed-point signals (default: half the word).</summary>
+    public int? SignalFractionBits { get; init; }
+
     /// <summary>Anti-windup of the exported PID (PI, PD, PID designs).</summary>
     public AntiWindup AntiWindup { get; init; } = AntiWindup.Clamping;
 

@@ -119,6 +119,34 @@ public sealed record HandoffPackage(
         }
 
         var vectors = Vectors(stored, options.Format);
+        var fixedNote = string.Empty;
+        if (options.Format.Kind == NumberFormatKind.Fixed)
+        {
+            if (options.Format.WordBits <= FixedPointCascade.MaxWordBits)
+            {
+                var signalBits = options.SignalFractionBits ?? (options.Format.WordBits / 2);
+                FixedPointCascade cascade;
+                try
+                {
+                    cascade = FixedPointCascade.Create(quantization.Sections, options.Format.WordBits, signalBits);
+                }
+                catch (ArgumentException e)
+                {
+                    return Outcome<HandoffPackage>.Refused(e.Message.Split(" (Parameter", 2)[0], "Give --signal-fraction-bits between 0 and the word length − 1.");
+                }
+
+                var (fixedHeader, fixedSource) = FixedPointCodeGenerator.Generate(options.Name, cascade, t, origin);
+                files.Add($"{options.Name}.h", fixedHeader);
+                files.Add($"{options.Name}.c", fixedSource);
+                vectors = FixedVectors(cascade);
+                fixedNote = $"Fixed point: {options.Format.WordBits}-bit words, signals with {signalBits} fractional bits, coefficient post-shifts {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; the vectors are bit-exact integers.";
+            }
+            else
+            {
+                fixedNote = $"No C code for {options.Format}: the fixed-point export supports words up to {FixedPointCascade.MaxWordBits} bits (64-bit accumulators without overflow); the quantization analysis still applies.";
+            }
+        }
+
         var pidNote = string.Empty;
         if (report.Design.Compensator.Pid is { } forms && options.Format.Kind == NumberFormatKind.Double)
         {
@@ -135,14 +163,14 @@ public sealed record HandoffPackage(
                 : $"PID form: positional, derivative on the measurement, output limits ±{F(limit.Value)}, anti-windup {options.AntiWindup}.";
         }
 
-        if (pidNote.Length > 0)
+        foreach (var extra in new[] { pidNote, fixedNote }.Where(x => x.Length > 0))
         {
-            note += " " + pidNote;
+            note += " " + extra;
         }
 
         files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note));
         files.Add($"{options.Name}-vectors.csv", vectors);
-        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, caseName));
+        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, caseName, [.. files.Keys, $"{options.Name}-report.md"]));
         return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note));
     }
 
@@ -166,6 +194,34 @@ public sealed record HandoffPackage(
             for (var k = 0; k < input.Length; k++)
             {
                 sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]:R},{output[k]:R}");
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    private static string FixedVectors(FixedPointCascade cascade)
+    {
+        var random = new Random(20261201);
+        var max = (1L << (cascade.WordBits - 1)) - 1;
+        var runs = new (string Name, long[] Input)[]
+        {
+            ("impulse", [cascade.ToInteger(1.0), .. Enumerable.Repeat(0L, 99)]),
+            ("step", [.. Enumerable.Repeat(cascade.ToInteger(1.0), 100)]),
+            ("random", [.. Enumerable.Range(0, 100).Select(_ => cascade.ToInteger((random.NextDouble() - 0.5) * 0.5))]),
+            ("saturating", [.. Enumerable.Repeat(max, 50), .. Enumerable.Repeat(-max - 1, 50)]),
+        };
+        var sb = new StringBuilder();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist fixed-point test vectors: signed {cascade.WordBits}-bit integers, signals with {cascade.SignalFractionBits} fractional bits.");
+        sb.AppendLine("# Feed 'input' to <name>_step from <name>_init; 'expected' must match bit for bit. Runs restart from rest.");
+        sb.AppendLine("# The controller is not a safety function; see the report's caution.");
+        sb.AppendLine("run,k,input,expected");
+        foreach (var (name, input) in runs)
+        {
+            var output = cascade.Run(input);
+            for (var k = 0; k < input.Length; k++)
+            {
+                sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]},{output[k]}");
             }
         }
 
@@ -257,7 +313,7 @@ public sealed record HandoffPackage(
         return Encoding.UTF8.GetString(stream.ToArray());
     }
 
-    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, string caseName)
+    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, string caseName, IEnumerable<string> files)
     {
         var d = discrete.Discrete;
         var m = report.Check.Step;
@@ -270,7 +326,7 @@ public sealed record HandoffPackage(
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Source design: {origin}");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Sample time: {F(d.SampleTime)} s ({note})");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Method: {DiscreteReport.MethodName(discrete.Method)} ({discrete.GainMatching}); computation delay {(options.ComputationDelay ? "one sample" : "none")}");
-        sb.AppendLine(CultureInfo.InvariantCulture, $"- Form: cascaded sections in transposed direct form II; coefficients stored as {options.Format}{(options.Format.Kind == NumberFormatKind.Fixed ? $" (fractional bits per section: {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; round to nearest, saturate; no C code is generated for fixed point yet)" : string.Empty)}; saturation and anti-windup are not included");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"- Form: cascaded sections in transposed direct form II; coefficients stored as {options.Format}{(options.Format.Kind == NumberFormatKind.Fixed ? $" (fractional bits per section: {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; round to nearest, saturate)" : string.Empty)}; actuator saturation and anti-windup are not included in the section cascade (see the PID export for PID designs)");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Quantization: largest pole shift {F(quantization.LargestPoleShift)}, largest zero shift {F(quantization.LargestZeroShift)}, DC gain change {F(quantization.DcGainChangePercent)} %; the sampled loop below uses the stored coefficients");
         sb.AppendLine("- Units: input = control error (measurement units), output = actuator command");
         sb.AppendLine();
@@ -310,7 +366,7 @@ public sealed record HandoffPackage(
         }
 
         sb.AppendLine();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: {(options.Format.Kind == NumberFormatKind.Fixed ? string.Empty : $"`{options.Name}.h`, `{options.Name}.c` (C99, {options.Format}), ")}`{options.Name}.json`, `{options.Name}-vectors.csv`, `{options.Name}-step.svg` (continuous and sampled step).");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: {string.Join(", ", files.Order().Select(k => $"`{k}`"))}, `{options.Name}-step.svg` (continuous and sampled step).");
         sb.AppendLine();
         sb.AppendLine("## The continuous design and its proof");
         sb.AppendLine();

@@ -94,7 +94,7 @@ public class HandoffCommandTests
     }
 
     [Fact]
-    public void Handoff_FixedPoint_AnalysesWithoutCode()
+    public void Handoff_FixedPoint_WritesBitExactCodeAndIntegerVectors()
     {
         var folder = Directory.CreateTempSubdirectory("compassist-handoff-fixed-").FullName;
         try
@@ -103,7 +103,8 @@ public class HandoffCommandTests
             var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.001", "--format", "fixed16", "--name", "belt");
             Assert.True(code is 0 or 3, error);
             Assert.Contains("fixed16: quantization analysed", output, StringComparison.Ordinal);
-            Assert.False(File.Exists(Path.Combine(folder, "belt.c")));
+            Assert.Contains("int64_t", File.ReadAllText(Path.Combine(folder, "belt.c")), StringComparison.Ordinal);
+            Assert.Contains("saturating,0,32767,", File.ReadAllText(Path.Combine(folder, "belt-vectors.csv")), StringComparison.Ordinal);
             using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "belt.json")));
             Assert.Equal("fixed16", json.RootElement.GetProperty("format").GetString());
             Assert.True(json.RootElement.GetProperty("quantization").GetProperty("largestPoleShift").GetDouble() > 0);
