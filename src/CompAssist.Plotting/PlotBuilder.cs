@@ -64,6 +64,28 @@ public static class PlotBuilder
         return model;
     }
 
+    /// <summary>The sampled loop's closed-loop poles in the z-plane with the unit circle.</summary>
+    public static PlotModel ZPlanePoles(string title, IEnumerable<Complex> closedLoopPoles, IEnumerable<Complex> controllerZeros, double sampleTime)
+    {
+        ArgumentNullException.ThrowIfNull(closedLoopPoles);
+        ArgumentNullException.ThrowIfNull(controllerZeros);
+        var model = NewModel(title.Length > 0 ? $"Sampled closed-loop poles — {title}" : "Sampled closed-loop poles", $"z-plane, T = {TransferFunctionFormatter.Number(sampleTime, 4)} s; stable inside the unit circle");
+        model.PlotType = PlotType.Cartesian;
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = "Re z", Minimum = -1.3, Maximum = 1.3, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "Im z", Minimum = -1.3, Maximum = 1.3, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
+        var circle = new LineSeries { Title = "unit circle", Color = Guide, LineStyle = LineStyle.Dash, StrokeThickness = 1 };
+        for (var k = 0; k <= 360; k++)
+        {
+            circle.Points.Add(new DataPoint(Math.Cos(k * Math.PI / 180), Math.Sin(k * Math.PI / 180)));
+        }
+
+        model.Series.Add(circle);
+        Markers(model, closedLoopPoles, MarkerType.Cross, Designed, "closed-loop pole");
+        Markers(model, controllerZeros, MarkerType.Circle, Branch, "controller zero", hollow: true);
+        Legend(model);
+        return model;
+    }
+
     private static PlotModel NewModel(string title, string subtitle) => new()
     {
         Title = title,

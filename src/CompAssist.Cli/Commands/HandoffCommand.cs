@@ -99,6 +99,8 @@ internal static class HandoffCommand
 
                 var plot = PlotBuilder.SampledStep(input.Name, run.Report!.Check.Output, package.Value.Proof.Step);
                 PlotExporter.Write(plot, Path.Combine(folder, $"{options.Name}-step.svg"));
+                var poles = PlotBuilder.ZPlanePoles(input.Name, package.Value.Proof.ClosedLoopPoles, package.Value.Quantization.Quantized.Zeros, package.Value.Discretization.Discrete.SampleTime);
+                PlotExporter.Write(poles, Path.Combine(folder, $"{options.Name}-poles.svg"));
             }
             catch (IOException e)
             {
@@ -112,7 +114,7 @@ internal static class HandoffCommand
             }
 
             var proof = package.Value.Proof;
-            stdout.WriteLine($"wrote {package.Value.Files.Count + 1} files into {folder}");
+            stdout.WriteLine($"wrote {package.Value.Files.Count + 2} files into {folder}");
             stdout.WriteLine($"  sample time: {package.Value.SampleTimeNote}");
             stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");
             if (numberFormat.Kind == NumberFormatKind.Fixed)

@@ -118,7 +118,7 @@ public sealed record HandoffPackage(
             files.Add($"{options.Name}.c", source);
         }
 
-        var vectors = Vectors(stored, options.Format);
+        var vectors = Vectors(stored, options.Format, t);
         var fixedNote = string.Empty;
         if (options.Format.Kind == NumberFormatKind.Fixed)
         {
@@ -138,7 +138,7 @@ public sealed record HandoffPackage(
                 var (fixedHeader, fixedSource) = FixedPointCodeGenerator.Generate(options.Name, cascade, t, origin);
                 files.Add($"{options.Name}.h", fixedHeader);
                 files.Add($"{options.Name}.c", fixedSource);
-                vectors = FixedVectors(cascade);
+                vectors = FixedVectors(cascade, t);
                 fixedNote = $"Fixed point: {options.Format.WordBits}-bit words, signals with {signalBits} fractional bits, coefficient post-shifts {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; the vectors are bit-exact integers.";
             }
             else
@@ -174,7 +174,7 @@ public sealed record HandoffPackage(
         return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note));
     }
 
-    private static string Vectors(ImmutableArray<Section> sections, NumberFormat format)
+    private static string Vectors(ImmutableArray<Section> sections, NumberFormat format, double sampleTime)
     {
         var random = new Random(20261201);
         var runs = new (string Name, double[] Input)[]
@@ -184,7 +184,8 @@ public sealed record HandoffPackage(
             ("random", [.. Enumerable.Range(0, 100).Select(_ => (2 * random.NextDouble()) - 1)]),
         };
         var sb = new StringBuilder();
-        sb.AppendLine("# CompAssist test vectors: feed 'input' to <name>_step from <name>_init, one row per sample; 'expected' is the");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist test vectors for a {sections.Length}-section cascade (transposed direct form II), sample time {sampleTime:R} s.");
+        sb.AppendLine("# Feed 'input' to <name>_step from <name>_init, one row per sample; 'expected' is the");
         sb.AppendLine($"# output of the same section cascade with the coefficients as stored ({format}; fixed point: the real-valued cascade of the rounded coefficients). Runs restart from rest. Units: input = control error,");
         sb.AppendLine("# output = actuator command. The controller is not a safety function; see the report's caution.");
         sb.AppendLine("run,k,input,expected");
@@ -200,7 +201,7 @@ public sealed record HandoffPackage(
         return sb.ToString();
     }
 
-    private static string FixedVectors(FixedPointCascade cascade)
+    private static string FixedVectors(FixedPointCascade cascade, double sampleTime)
     {
         var random = new Random(20261201);
         var max = (1L << (cascade.WordBits - 1)) - 1;
@@ -212,7 +213,7 @@ public sealed record HandoffPackage(
             ("saturating", [.. Enumerable.Repeat(max, 50), .. Enumerable.Repeat(-max - 1, 50)]),
         };
         var sb = new StringBuilder();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist fixed-point test vectors: signed {cascade.WordBits}-bit integers, signals with {cascade.SignalFractionBits} fractional bits.");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist fixed-point test vectors: signed {cascade.WordBits}-bit integers, signals with {cascade.SignalFractionBits} fractional bits, sample time {sampleTime:R} s.");
         sb.AppendLine("# Feed 'input' to <name>_step from <name>_init; 'expected' must match bit for bit. Runs restart from rest.");
         sb.AppendLine("# The controller is not a safety function; see the report's caution.");
         sb.AppendLine("run,k,input,expected");
@@ -234,7 +235,7 @@ public sealed record HandoffPackage(
         var twin = new PidImplementation(pid.Forms, pid.SampleTime, pid.UMin, pid.UMax, pid.AntiWindup, pid.TrackingTime);
         var plant = Discretizer.ZeroOrderHold(loop.Plant.WithoutDelay(), pid.SampleTime);
         var sb = new StringBuilder();
-        sb.AppendLine("# CompAssist PID test vector: a saturating closed-loop run on the ZOH plant. Feed reference and measurement to");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist PID test vector (positional, derivative on the measurement, sample time {pid.SampleTime:R} s): a saturating closed-loop run on the ZOH plant. Feed reference and measurement to");
         sb.AppendLine("# <name>_pid_step from <name>_pid_init, one row per sample; 'expected' is the command. Not a safety function.");
         sb.AppendLine("k,reference,measurement,expected");
         var u = new List<double>();
@@ -366,7 +367,11 @@ public sealed record HandoffPackage(
         }
 
         sb.AppendLine();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: {string.Join(", ", files.Order().Select(k => $"`{k}`"))}, `{options.Name}-step.svg` (continuous and sampled step).");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"Files: {string.Join(", ", files.Order().Select(k => $"`{k}`"))}, `{options.Name}-step.svg` (continuous and sampled step), `{options.Name}-poles.svg` (sampled closed-loop poles in the z-plane).");
+        sb.AppendLine();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"![continuous and sampled step]({options.Name}-step.svg)");
+        sb.AppendLine();
+        sb.AppendLine(CultureInfo.InvariantCulture, $"![sampled closed-loop poles]({options.Name}-poles.svg)");
         sb.AppendLine();
         sb.AppendLine("## The continuous design and its proof");
         sb.AppendLine();

@@ -25,7 +25,7 @@ public class HandoffCommandTests
             var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
             var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.005", "--name", "belt_axis");
             Assert.True(code == 0, error + output);
-            foreach (var name in new[] { "belt_axis.h", "belt_axis.c", "belt_axis.json", "belt_axis-vectors.csv", "belt_axis-report.md", "belt_axis-step.svg" })
+            foreach (var name in new[] { "belt_axis.h", "belt_axis.c", "belt_axis.json", "belt_axis-vectors.csv", "belt_axis-report.md", "belt_axis-step.svg", "belt_axis-poles.svg" })
             {
                 Assert.True(File.Exists(Path.Combine(folder, name)), name);
             }
