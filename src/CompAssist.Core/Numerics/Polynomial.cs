@@ -58,7 +58,11 @@ public sealed class Polynomial : IEquatable<Polynomial>
     /// Expands <c>leading · Π (s − rᵢ)</c>. The roots must be closed under conjugation (within rounding),
     /// so that the result is real; the imaginary residue is discarded.
     /// </summary>
-    public static Polynomial FromRoots(IReadOnlyList<Complex> roots, double leading = 1.0)
+    public static Polynomial FromRoots(IReadOnlyList<Complex> roots, double leading = 1.0) =>
+        TryFromRoots(roots, leading) ?? throw new ArgumentException("The expanded coefficients overflow.", nameof(roots));
+
+    /// <summary>As <see cref="FromRoots"/>, or null when the expanded coefficients are not finite (overflow).</summary>
+    public static Polynomial? TryFromRoots(IReadOnlyList<Complex> roots, double leading = 1.0)
     {
         ArgumentNullException.ThrowIfNull(roots);
         var c = new Complex[roots.Count + 1];
@@ -78,9 +82,13 @@ public sealed class Polynomial : IEquatable<Polynomial>
         for (var k = 0; k < c.Length; k++)
         {
             real[k] = leading * c[k].Real;
+            if (!double.IsFinite(real[k]))
+            {
+                return null;
+            }
         }
 
-        return FromAscending(real);
+        return new Polynomial(Trim(real));
     }
 
     /// <summary>Degree; −1 for the zero polynomial.</summary>

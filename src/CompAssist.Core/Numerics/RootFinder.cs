@@ -140,6 +140,11 @@ public static class RootFinder
         for (var j = 0; j < n; j++)
         {
             a[0, j] = -c[n - 1 - j] / lead;
+            if (!double.IsFinite(a[0, j]) || Math.Abs(a[0, j]) > 1e150)
+            {
+                // The eigen-solver does not return on such matrices; no root of a real loop is this far out.
+                throw new RootFindingException("The polynomial's coefficients span too many orders of magnitude to find its roots.");
+            }
         }
 
         for (var i = 1; i < n; i++)
@@ -149,6 +154,11 @@ public static class RootFinder
 
         CompanionBalancer.Balance(a);
         var eig = Matrix<double>.Build.DenseOfArray(a).Evd(MathNet.Numerics.LinearAlgebra.Symmetricity.Asymmetric).EigenValues;
+        if (eig.Any(e => !double.IsFinite(e.Real) || !double.IsFinite(e.Imaginary)))
+        {
+            throw new RootFindingException("The eigenvalue solve of the companion matrix did not converge.");
+        }
+
         var uppers = new List<Complex>();
         var lowers = new List<Complex>();
         foreach (var e in eig)

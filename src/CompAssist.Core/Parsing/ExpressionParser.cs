@@ -178,6 +178,10 @@ public static class ExpressionParser
                 {
                     throw Failure(ParseMessages.RootsFailed(), op);
                 }
+                catch (OverflowException)
+                {
+                    throw Failure(ParseMessages.NotFinite(), op);
+                }
             }
 
             return left;
@@ -191,7 +195,7 @@ public static class ExpressionParser
                 var op = Advance();
                 var start = Current;
                 var right = Unary();
-                left = op.Kind == TokenKind.Star ? left.Times(right) : Divide(left, right, start);
+                left = Checked(op.Kind == TokenKind.Star ? left.Times(right) : Divide(left, right, start), op);
             }
 
             return left;
@@ -247,7 +251,8 @@ public static class ExpressionParser
                     throw Failure(ParseMessages.NumberAfterFactor(Current.Text), Current);
                 }
 
-                value = value.Times(Power());
+                var at = Current;
+                value = Checked(value.Times(Power()), at);
             }
 
             return value;
@@ -306,7 +311,7 @@ public static class ExpressionParser
             var result = RationalValue.Constant(1.0);
             for (var k = 0; k < n; k++)
             {
-                result = result.Times(value);
+                result = Checked(result.Times(value), caret);
             }
 
             return result;
@@ -405,6 +410,17 @@ public static class ExpressionParser
             }
 
             return RationalValue.PureDelay(-argument.Gain);
+        }
+
+        /// <summary>Refuses a sub-expression whose order already exceeds the limit (before any expansion).</summary>
+        private RationalValue Checked(RationalValue value, Token at)
+        {
+            if (value.Zeros.Count > MaxOrder || value.Poles.Count > MaxOrder)
+            {
+                throw Failure(ParseMessages.OrderTooHigh(Math.Max(value.Zeros.Count, value.Poles.Count), MaxOrder), at);
+            }
+
+            return value;
         }
 
         private void Enter(Token at)

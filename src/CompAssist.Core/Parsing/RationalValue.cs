@@ -51,6 +51,7 @@ internal sealed class RationalValue
 
     /// <summary>Sum; the caller has checked the delays match.</summary>
     /// <exception cref="RootFindingException">The new numerator's roots cannot be verified.</exception>
+    /// <exception cref="OverflowException">The expanded coefficients are not finite.</exception>
     public RationalValue Plus(RationalValue other)
     {
         if (IsZero)
@@ -90,8 +91,13 @@ internal sealed class RationalValue
             extraForOther.RemoveAt(match);
         }
 
-        var left = Polynomial.FromRoots([.. Zeros, .. extraForThis], Gain);
-        var right = Polynomial.FromRoots([.. other.Zeros, .. extraForOther], other.Gain);
+        var left = Polynomial.TryFromRoots([.. Zeros, .. extraForThis], Gain);
+        var right = Polynomial.TryFromRoots([.. other.Zeros, .. extraForOther], other.Gain);
+        if (left is null || right is null || (left + right).Ascending.Any(c => !double.IsFinite(c)))
+        {
+            throw new OverflowException("The expanded sum overflows.");
+        }
+
         var sum = CleanCancellation(left + right, left, right);
         if (sum.IsZero)
         {
