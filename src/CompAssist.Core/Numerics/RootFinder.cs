@@ -72,6 +72,7 @@ public static class RootFinder
         var polished = new List<Complex>(function.Degree);
         var maxResidual = 0.0;
         var maxStep = 0.0;
+        var failed = false;
         foreach (var seed in seeds)
         {
             var (root, residual, step) = Polish(function, seed, seeds);
@@ -81,12 +82,7 @@ public static class RootFinder
                 polished.Add(Complex.Conjugate(root));
             }
 
-            if (!(residual <= ResidualLimit || step <= StepLimit))
-            {
-                throw new RootFindingException(
-                    $"A root near {root} failed its check (relative residual {residual:G3}, relative Newton step {step:G3}); the problem is too ill-conditioned.");
-            }
-
+            failed |= !(residual <= ResidualLimit || step <= StepLimit);
             maxResidual = Math.Max(maxResidual, residual);
             maxStep = Math.Max(maxStep, step);
         }
@@ -96,7 +92,131 @@ public static class RootFinder
             throw new RootFindingException($"Found {polished.Count} roots for a function of degree {function.Degree}.");
         }
 
+        if (failed)
+        {
+            // Expanded coefficients gave seeds too poor for independent polishing (clustered or Wilkinson-like
+            // roots): refine them all together by Aberth–Ehrlich iteration on the accurate evaluation.
+            return Simultaneous(function, polished);
+        }
+
         return new RootReport(ConjugateSymmetry.Canonical(polished), maxResidual, maxStep);
+    }
+
+    /// <summary>
+    /// Aberth–Ehrlich simultaneous iteration z ← z − N/(1 − N·Σⱼ 1/(z − zⱼ)), N = f/f′, on the accurate evaluation,
+    /// then every root is checked as usual and the set made exactly conjugate-closed.
+    /// </summary>
+    private static RootReport Simultaneous(IRootFunction f, List<Complex> start)
+    {
+        var z = start.ToArray();
+        var n = z.Length;
+
+        // Separate exact duplicates so the correction terms stay finite.
+        for (var i = 0; i < n; i++)
+        {
+            for (var j = 0; j < i; j++)
+            {
+                if (z[i] == z[j])
+                {
+                    z[i] += new Complex(1e-7 * Math.Max(1, z[i].Magnitude), 1e-7 * Math.Max(1, z[i].Magnitude) * (i + 1));
+                }
+            }
+        }
+
+        for (var iteration = 0; iteration < 200; iteration++)
+        {
+            var largest = 0.0;
+            for (var i = 0; i < n; i++)
+            {
+                var (v, d, _) = f.Evaluate(z[i]);
+                if (v == Complex.Zero)
+                {
+                    continue;
+                }
+
+                var ratio = v / d;
+                Complex sum = 0;
+                for (var j = 0; j < n; j++)
+                {
+                    if (j != i)
+                    {
+                        sum += 1.0 / (z[i] - z[j]);
+                    }
+                }
+
+                var w = ratio / (1.0 - (ratio * sum));
+                if (double.IsFinite(w.Real) && double.IsFinite(w.Imaginary))
+                {
+                    z[i] -= w;
+                    largest = Math.Max(largest, w.Magnitude / Math.Max(z[i].Magnitude, double.Epsilon));
+                }
+            }
+
+            if (largest <= 1e-15)
+            {
+                break;
+            }
+        }
+
+        // Pair each root with its nearest conjugate partner and symmetrize; real roots lose their tiny imaginary part.
+        var used = new bool[n];
+        var result = new List<Complex>(n);
+        var order = Enumerable.Range(0, n).OrderBy(i => Math.Abs(z[i].Imaginary)).ToList();
+        foreach (var i in order)
+        {
+            if (used[i])
+            {
+                continue;
+            }
+
+            used[i] = true;
+            if (Math.Abs(z[i].Imaginary) <= 1e-9 * Math.Max(1, z[i].Magnitude))
+            {
+                result.Add(new Complex(z[i].Real, 0));
+                continue;
+            }
+
+            var partner = -1;
+            var best = double.PositiveInfinity;
+            for (var j = 0; j < n; j++)
+            {
+                if (!used[j] && Complex.Abs(z[j] - Complex.Conjugate(z[i])) < best)
+                {
+                    best = Complex.Abs(z[j] - Complex.Conjugate(z[i]));
+                    partner = j;
+                }
+            }
+
+            if (partner < 0)
+            {
+                throw new RootFindingException("Simultaneous refinement left a complex root without its conjugate.");
+            }
+
+            used[partner] = true;
+            var upper = 0.5 * (z[i] + Complex.Conjugate(z[partner]));
+            upper = upper.Imaginary < 0 ? Complex.Conjugate(upper) : upper;
+            result.Add(upper);
+            result.Add(Complex.Conjugate(upper));
+        }
+
+        var maxResidual = 0.0;
+        var maxStep = 0.0;
+        foreach (var r in result)
+        {
+            var (v, d, scale) = f.Evaluate(r);
+            var residual = Relative(v, scale);
+            var step = d == Complex.Zero ? (v == Complex.Zero ? 0.0 : double.PositiveInfinity) : Complex.Abs(v / d) / Math.Max(r.Magnitude, double.Epsilon);
+            if (!(residual <= ResidualLimit || step <= StepLimit))
+            {
+                throw new RootFindingException(
+                    $"A root near {r} failed its check (relative residual {residual:G3}, relative Newton step {step:G3}); the problem is too ill-conditioned.");
+            }
+
+            maxResidual = Math.Max(maxResidual, residual);
+            maxStep = Math.Max(maxStep, step);
+        }
+
+        return new RootReport(ConjugateSymmetry.Canonical(result), maxResidual, maxStep);
     }
 
     /// <summary>
