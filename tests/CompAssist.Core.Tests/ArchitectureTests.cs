@@ -53,14 +53,5 @@ public class ArchitectureTests
         }
     }
 
-    private static string FindSourceFolder()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "CompAssist.sln")))
-        {
-            dir = dir.Parent;
-        }
-
-        return Path.Combine(dir!.FullName, "src", "CompAssist.Core");
-    }
+    private static string FindSourceFolder() => Path.Combine(Support.Repository.Root(), "src", "CompAssist.Core");
 }

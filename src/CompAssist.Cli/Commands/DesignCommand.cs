@@ -31,6 +31,24 @@ internal static class DesignCommand
             return failure;
         }
 
+        if (parse.GetValue(s.Save) is { } savePath)
+        {
+            try
+            {
+                Core.Cases.CaseFileWriter.Save(input, savePath);
+            }
+            catch (IOException e)
+            {
+                stderr.WriteLine($"error: cannot save the case to {savePath}: {e.Message}");
+                return CliApplication.InputError;
+            }
+            catch (UnauthorizedAccessException e)
+            {
+                stderr.WriteLine($"error: cannot save the case to {savePath}: {e.Message}");
+                return CliApplication.InputError;
+            }
+        }
+
         var report = run.Report!;
         stdout.Write(parse.GetValue(s.Loop.Json) ? DesignJsonReport.Render(report) + Environment.NewLine : DesignTextReport.Render(report, input.Name, s.Loop.Style(parse)));
         return CliApplication.Success;

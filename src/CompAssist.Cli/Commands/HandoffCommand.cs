@@ -4,6 +4,8 @@ using CompAssist.Core.Export;
 using CompAssist.Core.Workflow;
 using CompAssist.Plotting;
 
+using CompAssist.Core.Cases;
+
 namespace CompAssist.Cli.Commands;
 
 /// <summary><c>compassist handoff</c>: discretize, re-prove sampled, and export code, coefficients, vectors and a report.</summary>

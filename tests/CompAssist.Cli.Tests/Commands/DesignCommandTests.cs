@@ -206,4 +206,24 @@ public class DesignCommandTests
         Assert.Equal(2, code);
         Assert.Contains("both set a steady-state requirement", error, StringComparison.Ordinal);
     }
+
+    [Fact]
+    public void Design_Save_WritesACaseThatReproducesTheDesign()
+    {
+        var path = Path.Combine(Path.GetTempPath(), $"compassist-saved-{Guid.NewGuid():N}.toml");
+        try
+        {
+            var (code, first, error) = CliRunner.Run("design", "--plant", "4/(s(s+2))", "--zeta", "0.5", "--wn", "4", "--placement", "cancel", "--save", path, "--json");
+            Assert.True(code == 0, error);
+            var (code2, second, error2) = CliRunner.Run("design", path, "--json");
+            Assert.True(code2 == 0, error2);
+            using var a = JsonDocument.Parse(first);
+            using var b = JsonDocument.Parse(second);
+            Assert.Equal(a.RootElement.GetProperty("compensator").GetProperty("gain").GetDouble(), b.RootElement.GetProperty("compensator").GetProperty("gain").GetDouble());
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
 }
