@@ -85,6 +85,7 @@ internal static class DesignCommand
                 AngleBudgetDegrees = parse.GetValue(s.AngleBudget) ?? input.Slow.AngleBudgetDegrees,
                 Margin = parse.GetValue(s.Margin) ?? input.Slow.Margin,
                 FilterRatio = parse.GetValue(s.FilterRatio) ?? input.Slow.FilterRatio,
+                EqualFactor = parse.GetValue(s.EqualFactor) || input.Slow.EqualFactor,
             },
             Lead = lead with
             {

@@ -27,12 +27,14 @@ internal sealed class DesignSettings
 
     public Option<double?> MaxStageAngle { get; } = new("--max-stage-angle") { Description = "Largest lead angle per stage in degrees (default 60)." };
 
+    public Option<bool> EqualFactor { get; } = new("--equal-factor") { Description = "Lead-lag: fix the gain from the error constant first and use one ratio for lead and lag." };
+
     public Option<string?> Save { get; } = new("--save") { Description = "Also save the case as used (flags included) to this TOML file, atomically." };
 
     public void AddTo(Command command)
     {
         Loop.AddTo(command);
-        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, Save })
+        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Save })
         {
             command.Options.Add(option);
         }

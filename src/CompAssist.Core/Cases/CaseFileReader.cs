@@ -42,6 +42,7 @@ namespace CompAssist.Core.Cases;
 /// angle_budget_deg = 5             # largest angle the lag/PI may cost at the target
 /// margin = 1.1                     # safety factor on the lag ratio
 /// filter_ratio = 10                # PD/PID derivative filter pole at N times the zero (absent: ideal)
+/// equal_factor = false             # lead-lag: gain fixed first by the error constant, one ratio for both
 /// [check]
 /// reference_step = 1.0             # size of the reference step for the actuator figures
 /// actuator_limit = 12.0            # largest |u| the actuator delivers
@@ -56,7 +57,7 @@ public static partial class CaseFileReader
         [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator", "check"],
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
         ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
-        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio"],
+        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio", "equal_factor"],
         ["check"] = ["reference_step", "actuator_limit", "vary"],
     };
 
@@ -283,6 +284,7 @@ public static partial class CaseFileReader
                     AngleBudgetDegrees = Number(comp, "compensator", "angle_budget_deg") ?? 5.0,
                     Margin = Number(comp, "compensator", "margin") ?? 1.1,
                     FilterRatio = Number(comp, "compensator", "filter_ratio"),
+                    EqualFactor = comp is not null && comp.TryGetValue("equal_factor", out var ef) && ef is true,
                 },
                 Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit },
                 Variations = variations.ToImmutable(),

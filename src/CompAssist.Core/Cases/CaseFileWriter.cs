@@ -59,6 +59,7 @@ public static class CaseFileWriter
         sb.AppendLine($"angle_budget_deg = {N(c.Slow.AngleBudgetDegrees)}");
         sb.AppendLine($"margin = {N(c.Slow.Margin)}");
         Optional(sb, "filter_ratio", c.Slow.FilterRatio);
+        sb.AppendLine($"equal_factor = {(c.Slow.EqualFactor ? "true" : "false")}");
         sb.AppendLine();
         sb.AppendLine("[check]");
         sb.AppendLine($"reference_step = {N(c.Check.ReferenceStep)}");

@@ -36,7 +36,7 @@ public static class DesignTextReport
         sb.AppendLine($"  σ = {N(requested.Sigma)} 1/s   ωd = {N(requested.DampedFrequency)} rad/s   ζ = {N(requested.Zeta, 4)}   ωn = {N(requested.NaturalFrequency)} rad/s");
         if (target.Point != requested.Point)
         {
-            sb.AppendLine($"  placed at s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j (same ζ; see Synthesis)");
+            sb.AppendLine($"  placed at s* = {N(target.Point.Real)} ± {N(target.DampedFrequency)}j (see Synthesis)");
         }
         sb.AppendLine($"  chosen as: {report.Selection.Source}");
         foreach (var c in report.Selection.Constraints)

@@ -27,7 +27,7 @@ public sealed class Compensator
     /// <summary>The stages, in cascade order.</summary>
     public ImmutableArray<CompensatorStage> Stages { get; }
 
-    /// <summary>Every gain form of a PI, PD or PID compensator; null for the others.</summary>
+    /// <summary>Every gain form of a PI, PD or PID compensator (its PID part, when lead stages follow); null for the others.</summary>
     public PidForms? Pid { get; }
 
     /// <summary>The whole compensator as a transfer function.</summary>
@@ -44,9 +44,15 @@ public sealed class Compensator
     public static Compensator FromStages(CompensatorKind kind, double gain, IEnumerable<CompensatorStage> stages)
     {
         var unformed = Build(kind, gain, stages, null);
-        return kind is CompensatorKind.PD or CompensatorKind.PI or CompensatorKind.PID
-            ? Build(kind, gain, unformed.Stages, PidForms.FromTransferFunction(unformed.TransferFunction))
-            : unformed;
+        if (kind is not (CompensatorKind.PD or CompensatorKind.PI or CompensatorKind.PID))
+        {
+            return unformed;
+        }
+
+        // The gain forms describe the PID part (its PI and PD stages with the whole gain); any lead stages
+        // cascaded after it for extra angle are reported as stages.
+        var pidPart = Build(kind, gain, unformed.Stages.Where(st => st.Kind is CompensatorKind.PI or CompensatorKind.PD), null);
+        return Build(kind, gain, unformed.Stages, PidForms.FromTransferFunction(pidPart.TransferFunction));
     }
 
     private static Compensator Build(CompensatorKind kind, double gain, IEnumerable<CompensatorStage> stages, PidForms? pid)

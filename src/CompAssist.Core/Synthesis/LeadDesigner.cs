@@ -110,6 +110,15 @@ public static class LeadDesigner
         return Outcome<Design>.Success(new Design(loop, target, compensator, options.Placement, uncompensated, deficiency, notes.ToImmutable()));
     }
 
+    /// <summary>A stage with the given pole/zero ratio that adds <paramref name="angleDegrees"/> at s.</summary>
+    internal static Outcome<CompensatorStage> PlaceWithRatio(Complex s, double ratio, double angleDegrees, CompensatorKind kind)
+    {
+        var placed = Ratio(s, ratio, Angles.ToRadians(angleDegrees), angleDegrees);
+        return placed.IsSuccess
+            ? Outcome<CompensatorStage>.Success(new CompensatorStage(kind, placed.Value.Zero, placed.Value.Pole, angleDegrees))
+            : Outcome<CompensatorStage>.Refused(placed.Problem);
+    }
+
     /// <summary>The angle (radians, in (0, π)) under which the real point x sees s.</summary>
     public static double AngleSeen(Complex s, double x) => Math.Atan2(s.Imaginary, s.Real - x);
 

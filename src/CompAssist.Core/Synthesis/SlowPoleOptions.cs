@@ -12,6 +12,12 @@ public sealed record SlowPoleOptions
     /// <summary>Safety factor on the lag ratio, because the re-solved gain comes out slightly lower.</summary>
     public double Margin { get; init; } = 1.1;
 
+    /// <summary>
+    /// Lead-lag only: the equal-factor variant (the gain fixed first by the error constant, lead and lag with
+    /// the same ratio) instead of independent lead and lag factors.
+    /// </summary>
+    public bool EqualFactor { get; init; }
+
     /// <summary>Derivative filter: the filter pole at this multiple of the PD zero (N); null for the ideal derivative.</summary>
     public double? FilterRatio { get; init; }
 }

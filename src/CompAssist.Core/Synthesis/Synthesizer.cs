@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using System.Globalization;
+using System.Numerics;
 using CompAssist.Core.Analysis;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
@@ -21,10 +22,10 @@ public static class Synthesizer
         {
             CompensatorKind.Lead => WithRequirementCheck(LeadDesigner.Design(loop, target, lead), loop, requirement),
             CompensatorKind.Lag => Lag(loop, target, slow, requirement),
-            CompensatorKind.LeadLag => LeadLag(loop, target, lead, slow, requirement),
+            CompensatorKind.LeadLag => slow.EqualFactor ? EqualFactorLeadLag(loop, target, slow, requirement) : LeadLag(loop, target, lead, slow, requirement),
             CompensatorKind.PD => Pd(loop, target, slow, requirement),
             CompensatorKind.PI => Pi(loop, target, slow, requirement),
-            CompensatorKind.PID => Pid(loop, target, slow, requirement),
+            CompensatorKind.PID => Pid(loop, target, lead, slow, requirement),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown compensator kind."),
         };
     }
@@ -70,6 +71,124 @@ public static class Synthesizer
         return Finish(loop, target, uncompensated, kind, null, SlowZeroDesigner.Add(loop, [], target, requirement, slow, integrator), []);
     }
 
+    /// <summary>
+    /// Lead-lag with one ratio β for both parts (common practice; Ogata, Modern Control Engineering, 5th ed.,
+    /// section 6-9, the case of equal factors): the gain Kc is fixed first by the error constant (lead and lag
+    /// DC factors cancel), the lead zero and pole then satisfy both the angle and the magnitude condition at the
+    /// target, and the lag zero sits near the origin with its pole at the zero over β. The lag shifts the
+    /// closed-loop pole slightly; the design reports the pole it really places.
+    /// </summary>
+    private static Outcome<Design> EqualFactorLeadLag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
+    {
+        var check = CheckTarget(loop, target);
+        if (check is not null)
+        {
+            return Outcome<Design>.Refused(check);
+        }
+
+        if (requirement is null)
+        {
+            return Outcome<Design>.Refused("The equal-factor lead-lag fixes its gain from the error constant", "Give --kp, --kv or --ka (or a steady-state error).");
+        }
+
+        var plantConstant = Proof.ErrorConstants.Of(loop, TransferFunction.Unity).ValueOf(requirement.Kind);
+        if (!(plantConstant > 0) || double.IsInfinity(plantConstant))
+        {
+            return Outcome<Design>.Refused(
+                $"{requirement.Symbol} of G·H is {F(plantConstant)}: the gain cannot be fixed from it",
+                "Use the independent lead-lag, or a PI/PID to change the system type.");
+        }
+
+        var kc = requirement.Value / plantConstant;
+        var s = target.Point;
+        var uncompensated = PointAnalysis.At(loop, s);
+        var phi = Angles.ToRadians(uncompensated.AngleDeficiencyDegrees);
+        if (!(phi > 0) || phi >= Math.PI / 2)
+        {
+            return Outcome<Design>.Refused(
+                $"The equal-factor lead must add {F(uncompensated.AngleDeficiencyDegrees)}° in one stage, outside 0°…90°",
+                "Use the independent lead-lag (it can split the lead into stages) or move the target.");
+        }
+
+        var magnitude = kc * uncompensated.Magnitude;
+
+        // Magnitude mismatch ln(Kc|GH|·|s − z|/|s − p(z)|) along z = −e^u, with p(z) from the angle condition.
+        double Mismatch(double u)
+        {
+            var z = -Math.Exp(u);
+            var thetaP = LeadDesigner.AngleSeen(s, z) - phi;
+            if (thetaP <= 0)
+            {
+                return double.NaN;
+            }
+
+            var pole = LeadDesigner.PointSeenUnder(s, thetaP);
+            return Math.Log(magnitude * Complex.Abs(s - z) / Complex.Abs(s - pole));
+        }
+
+        var centre = Math.Log(s.Magnitude);
+        double? found = null;
+        var previousU = centre - 12;
+        var previous = Mismatch(previousU);
+        for (var i = 1; i <= 600 && found is null; i++)
+        {
+            var u = centre - 12 + (24.0 * i / 600);
+            var value = Mismatch(u);
+            if (double.IsFinite(previous) && double.IsFinite(value) && Math.Sign(previous) != Math.Sign(value))
+            {
+                double a = previousU, b = u, fa = previous;
+                for (var k = 0; k < 200; k++)
+                {
+                    var m = 0.5 * (a + b);
+                    var fm = Mismatch(m);
+                    if (Math.Sign(fm) == Math.Sign(fa))
+                    {
+                        (a, fa) = (m, fm);
+                    }
+                    else
+                    {
+                        b = m;
+                    }
+                }
+
+                found = -Math.Exp(0.5 * (a + b));
+            }
+
+            (previousU, previous) = (u, value);
+        }
+
+        if (found is not { } leadZero)
+        {
+            return Outcome<Design>.Refused(
+                $"No lead with the gain Kc = {F(kc)} fixed by {requirement} meets both conditions at this target",
+                "Use the independent lead-lag, or relax the error constant or the target.");
+        }
+
+        var leadPole = LeadDesigner.PointSeenUnder(s, LeadDesigner.AngleSeen(s, leadZero) - phi);
+        var beta = leadPole / leadZero;
+        var lagZero = -slow.ZeroFraction * target.Sigma;
+        var lagPole = lagZero / beta;
+        var stages = ImmutableArray.Create(
+            new CompensatorStage(CompensatorKind.Lead, leadZero, leadPole, Angles.ToDegrees(phi)),
+            new CompensatorStage(CompensatorKind.Lag, lagZero, lagPole, Angles.ToDegrees(LeadDesigner.AngleSeen(s, lagZero) - LeadDesigner.AngleSeen(s, lagPole))));
+
+        // The factored gain is Kc itself: the lead's DC factor 1/β and the lag's β cancel.
+        var compensator = Compensator.FromStages(CompensatorKind.LeadLag, kc, stages);
+        var roots = Numerics.RootFinder.Find(loop.Characteristic(compensator.TransferFunction)).Roots;
+        var placed = TargetPole.At(roots.OrderBy(r => Complex.Abs(r - s)).First());
+        var notes = ImmutableArray.Create(
+            $"Equal-factor variant: the gain Kc = {F(kc)} is fixed first by {requirement} (the lead's and the lag's DC factors cancel).",
+            $"The lead zero {F(leadZero)} and pole {F(leadPole)} meet the angle ({F(uncompensated.AngleDeficiencyDegrees)}°) and the magnitude condition at the target with that gain: ratio β = {F(beta)}.",
+            $"The lag uses the same ratio: zero {F(lagZero)} ({F(slow.ZeroFraction)}·σ), pole {F(lagPole)}; it shifts the closed-loop pole slightly, to {TransferFunctionFormatter.Complex(placed.Point, 5)}.");
+        var achieved = Proof.ErrorConstants.Of(loop, compensator.TransferFunction).ValueOf(requirement.Kind);
+        var design = new Design(loop, placed, compensator, null, uncompensated, uncompensated.AngleDeficiencyDegrees, notes)
+        {
+            SteadyState = new SteadyStateResult(requirement, plantConstant, achieved),
+            RequestedTarget = target,
+        };
+        return Outcome<Design>.Success(design);
+    }
+
     private static Outcome<Design> Pd(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
         var check = CheckTarget(loop, target);
@@ -96,7 +215,7 @@ public static class Synthesizer
         return WithRequirementCheck(Outcome<Design>.Success(design), loop, requirement);
     }
 
-    private static Outcome<Design> Pid(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
+    private static Outcome<Design> Pid(Loop loop, TargetPole target, LeadOptions lead, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
         var check = CheckTarget(loop, target);
         if (check is not null)
@@ -118,18 +237,51 @@ public static class Synthesizer
         var piAngle = Angles.ToDegrees(LeadDesigner.AngleSeen(s, piZero) - LeadDesigner.AngleSeen(s, 0.0));
         var pi = new CompensatorStage(CompensatorKind.PI, piZero, 0.0, piAngle);
         var needed = uncompensated.AngleDeficiencyDegrees - piAngle;
+        if (needed < 0 && needed + 360 <= lead.MaxStageAngleDegrees * (LeadOptions.MaxStages + 1))
+        {
+            // The angle condition holds modulo 360°: a lag of x° is also 360° − x° of lead.
+            needed += 360;
+        }
+
         var withPi = loop.WithPlant(loop.Plant * SlowZeroDesigner.Shape([pi]));
-        var derivative = DerivativeStage(withPi, target, needed, slow.FilterRatio);
+
+        // More than one derivative zero can reasonably give: the derivative supplies the usual per-stage limit
+        // and identical lead stages (bisector) supply the rest, counted together.
+        var extraStages = ImmutableArray<CompensatorStage>.Empty;
+        var fromDerivative = needed;
+        if (needed > lead.MaxStageAngleDegrees + 30)
+        {
+            fromDerivative = lead.MaxStageAngleDegrees;
+            var remaining = needed - fromDerivative;
+            var stagesNeeded = (int)Math.Ceiling(remaining / lead.MaxStageAngleDegrees);
+            var perStage = remaining / stagesNeeded;
+            var beta = Math.Atan2(s.Imaginary, s.Real);
+            var thetaZ = (beta + Angles.ToRadians(perStage)) / 2;
+            var thetaP = (beta - Angles.ToRadians(perStage)) / 2;
+            if (thetaP <= 0 || stagesNeeded > LeadOptions.MaxStages)
+            {
+                return Outcome<Design>.Refused($"The PID would need {F(needed)}°, beyond a derivative zero and {LeadOptions.MaxStages} lead stages", "Move the target toward the uncompensated locus.");
+            }
+
+            var stage = new CompensatorStage(CompensatorKind.Lead, LeadDesigner.PointSeenUnder(s, thetaZ), LeadDesigner.PointSeenUnder(s, thetaP), perStage);
+            extraStages = [.. Enumerable.Repeat(stage, stagesNeeded)];
+        }
+
+        var derivative = DerivativeStage(withPi, target, fromDerivative, slow.FilterRatio);
         if (!derivative.IsSuccess)
         {
             return Outcome<Design>.Refused(derivative.Problem);
         }
 
-        var stages = ImmutableArray.Create(pi, derivative.Value);
+        var stages = ImmutableArray.Create(pi, derivative.Value).AddRange(extraStages);
         var gain = PointAnalysis.At(loop, s, SlowZeroDesigner.Shape(stages)).Gain;
         var notes = ImmutableArray.CreateBuilder<string>();
         notes.Add($"Integral zero at {F(piZero)} ({F(slow.ZeroFraction)}·σ) with the integrator: {F(piAngle)}° at the target.");
-        notes.Add($"Derivative zero at {F(derivative.Value.Zero!.Value)} supplies the remaining {F(needed)}° (the integrator's angle counted).");
+        notes.Add($"Derivative zero at {F(derivative.Value.Zero!.Value)} supplies {F(fromDerivative)}° of the {F(needed)}° still needed (the integrator's angle counted).");
+        if (!extraStages.IsEmpty)
+        {
+            notes.Add($"{extraStages.Length} identical lead stage(s) (bisector) supply the remaining {F(needed - fromDerivative)}°; the PID gain forms describe the PID part, the lead stages follow it in cascade.");
+        }
         notes.Add(slow.FilterRatio is { } n
             ? $"Derivative filter pole at {F(derivative.Value.Pole!.Value)} (N = {F(n)}), counted in the angle sum."
             : "Ideal PID is improper: it kicks the actuator at every reference step and cannot be discretized as it is. Add a filter (--filter-ratio N) before hand-off.");
@@ -150,15 +302,7 @@ public static class Synthesizer
 
         if (filterRatio is { } n)
         {
-            var lead = LeadDesigner.Design(loop, target, new LeadOptions { Placement = LeadPlacement.Ratio, Ratio = n, MaxStageAngleDegrees = 89.99 });
-            if (!lead.IsSuccess || lead.Value.StageCount != 1)
-            {
-                return Outcome<CompensatorStage>.Refused(
-                    lead.Problem ?? new Problem($"A filtered derivative with N = {F(n)} cannot add {F(angle)}° in one stage", "Raise N or move the target."));
-            }
-
-            var st = lead.Value.Compensator.Stages[0];
-            return Outcome<CompensatorStage>.Success(new CompensatorStage(CompensatorKind.PD, st.Zero, st.Pole, st.AngleAtTargetDegrees));
+            return LeadDesigner.PlaceWithRatio(s, n, angle, CompensatorKind.PD);
         }
 
         if (angle >= Angles.ToDegrees(LeadDesigner.AngleSeen(s, 0.0)))

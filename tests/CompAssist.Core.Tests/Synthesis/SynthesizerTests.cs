@@ -158,4 +158,43 @@ public class SynthesizerTests
         Assert.Contains(reason, outcome.Problem!.Message + " " + outcome.Problem.Hint, StringComparison.Ordinal);
         Assert.False(string.IsNullOrWhiteSpace(outcome.Problem.Hint));
     }
+
+    [Fact]
+    public void LeadLag_EqualFactor_Ogata5thEx6_9SecondMethod()
+    {
+        // Ogata, 5th ed., Example 6-9, the equal-factor variant (from memory): G = 4/(s(s+0.5)), Kv = 80 fixes
+        // Kc = 80/8 = 10; the lead (s + 2.38)/(s + 8.34), β ≈ 3.5, then meets both conditions at −2.5 ± j4.33.
+        var loop = LoopOf("4/(s(s+0.5))");
+        var target = new Complex(-2.5, 2.5 * Math.Sqrt(3));
+        var outcome = Synthesizer.Design(loop, TargetPole.At(target), CompensatorKind.LeadLag, new LeadOptions(), new SlowPoleOptions { EqualFactor = true, ZeroFraction = 0.04 }, new ErrorRequirement(ErrorConstantKind.Velocity, 80));
+        Assert.True(outcome.IsSuccess, outcome.Problem?.ToString());
+        var d = outcome.Value;
+        Tolerance.Close(10.0, d.Compensator.Gain, 1e-12, what: "Kc = Kv/8");
+        var lead = d.Compensator.Stages[0];
+        var lag = d.Compensator.Stages[1];
+        Tolerance.Close(lead.PoleZeroRatio, lag.Zero!.Value / lag.Pole!.Value, 1e-12, what: "same β for lead and lag");
+        Tolerance.Close(-2.38, lead.Zero, 0, 0.05, "book lead zero");
+        Tolerance.Close(-8.34, lead.Pole, 0, 0.05, "book lead pole");
+        Tolerance.Close(3.5, lead.PoleZeroRatio, 0.02, what: "book β");
+
+        // The exact conditions at the target with the lead alone and Kc fixed.
+        var withLead = CompAssist.Core.Analysis.PointAnalysis.At(loop, target, TransferFunction.FromFactors(10.0, [new Complex(lead.Zero!.Value, 0)], [new Complex(lead.Pole!.Value, 0)]));
+        Assert.True(withLead.OnLocus);
+        Tolerance.Close(1.0, withLead.Magnitude, 1e-9);
+        Assert.True(d.SteadyState!.Met);
+        Tolerance.Close(80.0, d.SteadyState.After, 1e-9);
+        Assert.True(Complex.Abs(d.Target.Point - target) < 0.1 * target.Magnitude, "the lag moves the pole only slightly");
+    }
+
+    [Fact]
+    public void Pid_LargeDeficiency_AddsLeadStagesAndKeepsPidForms()
+    {
+        // 1/(s(s+1)³) at −1 + 2j needs about 209° of lead: the derivative zero gives 60° and identical lead
+        // stages the rest; the PID gain forms still describe the PID part.
+        var d = Designed(LoopOf("1/(s(s+1)^3)"), new Complex(-1, 2), CompensatorKind.PID, slow: new SlowPoleOptions { FilterRatio = 10 });
+        Assert.Equal(2, d.Compensator.Stages.Count(st => st.Kind is CompensatorKind.PI or CompensatorKind.PD));
+        Assert.True(d.Compensator.Stages.Count(st => st.Kind == CompensatorKind.Lead) >= 2);
+        Assert.NotNull(d.Compensator.Pid);
+        Tolerance.Close(d.AngleDeficiencyDegrees + 360, d.Compensator.Stages.Sum(st => st.AngleAtTargetDegrees), 1e-6, what: "all angles counted");
+    }
 }
