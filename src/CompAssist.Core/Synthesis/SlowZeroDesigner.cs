@@ -113,6 +113,14 @@ public static class SlowZeroDesigner
                 return Outcome<Result>.Refused(moved.Problem);
             }
 
+            var slide = Complex.Abs(moved.Value.Point - s) / s.Magnitude;
+            if (slide > 0.1)
+            {
+                return Outcome<Result>.Refused(
+                    $"The {what} would make the target slide {F(100 * slide)} % along its ζ ray (to {TransferFunctionFormatter.Complex(moved.Value.Point, 4)}) to stay on the locus",
+                    "Lower the zero fraction or the angle budget so the slow zero costs less angle, or choose a target nearer the uncompensated locus.");
+            }
+
             var gain = PointAnalysis.At(loop, moved.Value.Point, shape).Gain;
             var after = requirement is null ? double.NaN : ErrorConstants.Of(loop, shape.Scaled(gain)).ValueOf(requirement.Kind);
             if (requirement is null || after >= requirement.Value || integrator || attempt == 7)

@@ -176,6 +176,13 @@ public static class Synthesizer
         var compensator = Compensator.FromStages(CompensatorKind.LeadLag, kc, stages);
         var roots = Numerics.RootFinder.Find(loop.Characteristic(compensator.TransferFunction)).Roots;
         var placed = TargetPole.At(roots.OrderBy(r => Complex.Abs(r - s)).First());
+        if (Complex.Abs(placed.Point - s) > 0.1 * s.Magnitude)
+        {
+            return Outcome<Design>.Refused(
+                $"With the same ratio β = {F(leadPole / leadZero)} the lag moves the closed-loop pole from the target to {TransferFunctionFormatter.Complex(placed.Point, 4)}",
+                "Lower the lag's zero fraction (--zero-fraction), or use the independent lead-lag.");
+        }
+
         var notes = ImmutableArray.Create(
             $"Equal-factor variant: the gain Kc = {F(kc)} is fixed first by {requirement} (the lead's and the lag's DC factors cancel).",
             $"The lead zero {F(leadZero)} and pole {F(leadPole)} meet the angle ({F(uncompensated.AngleDeficiencyDegrees)}°) and the magnitude condition at the target with that gain: ratio β = {F(beta)}.",

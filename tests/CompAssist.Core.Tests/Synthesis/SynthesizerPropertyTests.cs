@@ -59,7 +59,7 @@ public class SynthesizerPropertyTests
                 AssertPlacedOrRefused(outcome, loop);
                 if (outcome.IsSuccess)
                 {
-                    designed++;
+                    Interlocked.Increment(ref designed);
                     var steady = outcome.Value.SteadyState!;
                     Assert.True(steady.Met, $"Kv {steady.After} < {requirement.Value}");
                     Assert.True(steady.After <= requirement.Value * 1.5, $"Kv {steady.After} overshoots {requirement.Value} by more than the margin allows");
@@ -106,6 +106,53 @@ public class SynthesizerPropertyTests
             {
                 var loop = Loop.Create(plant);
                 var outcome = Synthesizer.Design(loop, TargetPole.At(new Complex(re, im)), kind, new LeadOptions(), new SlowPoleOptions { FilterRatio = filter }, null);
+                AssertPlacedOrRefused(outcome, loop);
+            },
+            iter: Iterations);
+    }
+
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void LeadLag_RandomTargets_PlacedOrRefused(bool equalFactor)
+    {
+        var designed = 0;
+        Gen.Select(TypeOnePlant, Gen.Double[-6, -0.5], Gen.Double[0.5, 6], Gen.Double[2, 30]).Sample(
+            (plant, re, im, factor) =>
+            {
+                var loop = Loop.Create(plant);
+                var kv = ErrorConstants.Of(loop, TransferFunction.Unity).Kv * factor;
+                var outcome = Synthesizer.Design(loop, TargetPole.At(new Complex(re, im)), CompensatorKind.LeadLag, new LeadOptions(), new SlowPoleOptions { EqualFactor = equalFactor }, new ErrorRequirement(ErrorConstantKind.Velocity, kv));
+                if (!outcome.IsSuccess)
+                {
+                    Assert.False(string.IsNullOrWhiteSpace(outcome.Problem!.Hint));
+                    return;
+                }
+
+                // The design places its (possibly slightly moved) target as a verified closed-loop root, and the
+                // lag moves it only a little from where it was asked for.
+                var proof = LoopProver.Prove(loop, outcome.Value.Compensator.TransferFunction, outcome.Value.Target);
+                Assert.True(proof.TargetResidual <= 1e-9, $"residual {proof.TargetResidual:G3}");
+                var asked = new Complex(re, im);
+                Assert.True(Complex.Abs(outcome.Value.Target.Point - asked) <= 0.15 * asked.Magnitude, $"moved from {asked} to {outcome.Value.Target.Point}");
+                Assert.True(outcome.Value.SteadyState!.Met || equalFactor, "independent lead-lag meets Kv");
+                Interlocked.Increment(ref designed);
+            },
+            iter: Iterations);
+        Assert.True(designed > Iterations / 20, $"only {designed} lead-lag designs succeeded");
+    }
+
+    [Theory]
+    [InlineData(LeadPlacement.FixedZero)]
+    [InlineData(LeadPlacement.FixedPole)]
+    public void Lead_FixedPlacements_PlacedOrRefused(LeadPlacement placement)
+    {
+        Gen.Select(TypeOnePlant, Gen.Double[-6, -0.5], Gen.Double[0.5, 6], Gen.Double[0.05, 3]).Sample(
+            (plant, re, im, scale) =>
+            {
+                var loop = Loop.Create(plant);
+                var options = new LeadOptions { Placement = placement, Zero = re * scale, Pole = re * (2 + (5 * scale)) };
+                var outcome = Synthesizer.Design(loop, TargetPole.At(new Complex(re, im)), CompensatorKind.Lead, options, new SlowPoleOptions(), null);
                 AssertPlacedOrRefused(outcome, loop);
             },
             iter: Iterations);
