@@ -12,7 +12,7 @@ public static class FixedPointCodeGenerator
     {
         ArgumentNullException.ThrowIfNull(name);
         ArgumentNullException.ThrowIfNull(cascade);
-        if (name.Length == 0 || !(char.IsAsciiLetter(name[0]) || name[0] == '_') || !name.All(c => char.IsAsciiLetterOrDigit(c) || c == '_'))
+        if (!CLiterals.IsIdentifier(name))
         {
             throw new ArgumentException("The controller name must be a C identifier.", nameof(name));
         }

@@ -105,7 +105,7 @@ public sealed record HandoffPackage(
         }
         var origin = $"{(caseName.Length > 0 ? caseName + ": " : string.Empty)}C(s) = {c} for G(s) = {loop.Plant}, H(s) = {loop.Feedback}";
         var files = ImmutableDictionary.CreateBuilder<string, string>();
-        if (options.Name.Length == 0 || !(char.IsAsciiLetter(options.Name[0]) || options.Name[0] == '_') || !options.Name.All(ch => char.IsAsciiLetterOrDigit(ch) || ch == '_'))
+        if (!CLiterals.IsIdentifier(options.Name))
         {
             return Outcome<HandoffPackage>.Refused($"'{options.Name}' is not a C identifier", "Use letters, digits and underscores, starting with a letter.");
         }

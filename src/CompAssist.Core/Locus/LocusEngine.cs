@@ -121,7 +121,7 @@ public static class LocusEngine
 
         var ends = roots.Select(r => NearestZero(r, zeros, scale)).ToImmutableArray();
         return LocusFeatures.Complete(
-            branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, approximate, steps, reseeds);
+            branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, breakPoints, approximate, steps, reseeds);
     }
 
     /// <summary>

@@ -18,6 +18,7 @@ public static class LocusFeatures
         ImmutableArray<Complex> poles,
         ImmutableArray<Complex> zeros,
         double g,
+        ImmutableArray<BreakPoint> breakPoints,
         bool approximate,
         int steps,
         int reseeds)
@@ -37,7 +38,7 @@ public static class LocusFeatures
             Centroid = centroid,
             AsymptoteAnglesDegrees = angles,
             RealAxisSegments = Segments(poles, zeros, zeroDegree),
-            BreakPoints = BreakPoints(poles, zeros, g),
+            BreakPoints = breakPoints,
             AxisCrossings = AxisCrossings(poles, zeros, g),
             BranchAngles = BranchAngles(poles, zeros, zeroDegree),
             Approximate = approximate,

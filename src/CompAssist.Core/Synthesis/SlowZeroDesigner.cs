@@ -102,7 +102,7 @@ public static class SlowZeroDesigner
         }
 
         var zero = -fraction * sigma;
-        for (var attempt = 0; attempt < 8; attempt++)
+        for (var attempt = 0; ; attempt++)
         {
             var pole = integrator ? 0.0 : zero / beta;
             var slow = new CompensatorStage(integrator ? CompensatorKind.PI : CompensatorKind.Lag, zero, pole, Cost(fraction));
@@ -142,8 +142,6 @@ public static class SlowZeroDesigner
             // The re-solved gain came out lower than assumed: grow the ratio by the shortfall and try again.
             beta *= 1.02 * requirement.Value / after;
         }
-
-        throw new InvalidOperationException("unreachable");
     }
 
     /// <summary>The unit-gain transfer function of a list of stages.</summary>

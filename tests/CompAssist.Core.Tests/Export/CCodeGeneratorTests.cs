@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Globalization;
 using System.Numerics;
 using CompAssist.Core.Discrete;
@@ -11,24 +10,6 @@ namespace CompAssist.Core.Tests.Export;
 /// <summary>The exported C is compiled with the machine's C compiler (-std=c99 -Wall -Wextra -Werror) and run on test vectors.</summary>
 public class CCodeGeneratorTests
 {
-    private static string Compiler() =>
-        new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.FirstOrDefault(File.Exists)
-        ?? throw new InvalidOperationException("No C compiler found; .ci/run installs gcc when it is missing.");
-
-    private static (int Code, string Output, string Error) Run(string file, string arguments, string directory)
-    {
-        using var process = Process.Start(new ProcessStartInfo(file, arguments)
-        {
-            WorkingDirectory = directory,
-            RedirectStandardOutput = true,
-            RedirectStandardError = true,
-        })!;
-        var output = process.StandardOutput.ReadToEndAsync();
-        var error = process.StandardError.ReadToEndAsync();
-        process.WaitForExit();
-        return (process.ExitCode, output.Result, error.Result);
-    }
-
     [Theory]
     [InlineData("4.7(s+2.93)/(s+5.46)", 0.01, DiscretizationMethod.Tustin)]
     [InlineData("20(s+0.5)(s+3)/((s+0.05)(s+30))", 0.002, DiscretizationMethod.Prewarp)]
@@ -80,9 +61,8 @@ public class CCodeGeneratorTests
                     return 0;
                 }
                 """);
-            var compile = Run(Compiler(), "-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o test main.c axis_ctrl.c -lm", directory);
-            Assert.True(compile.Code == 0, compile.Error);
-            var run = Run(Path.Combine(directory, "test"), string.Empty, directory);
+            CCompiler.Compile(directory, "-O2", "main.c axis_ctrl.c -lm");
+            var run = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory);
             Assert.Equal(0, run.Code);
             var outputs = run.Output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
             Assert.Equal(input.Count, outputs.Count);
@@ -114,9 +94,8 @@ public class CCodeGeneratorTests
             File.WriteAllText(Path.Combine(directory, "f_ctrl.c"), source);
             var values = string.Join(",\n", input.Select(v => ((float)v).ToString("0.0########E+0", CultureInfo.InvariantCulture) + "f"));
             File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"f_ctrl.h\"\nstatic const float input[] = {\n" + values + "\n};\nint main(void)\n{\n    f_ctrl_state s;\n    unsigned i;\n    f_ctrl_init(&s);\n    for (i = 0; i < sizeof input / sizeof input[0]; ++i) {\n        printf(\"%.9g\\n\", (double)f_ctrl_step(&s, input[i]));\n    }\n    return 0;\n}\n");
-            var compile = Run(Compiler(), "-std=c99 -Wall -Wextra -Werror -pedantic -O2 -o test main.c f_ctrl.c", directory);
-            Assert.True(compile.Code == 0, compile.Error);
-            var outputs = Run(Path.Combine(directory, "test"), string.Empty, directory).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
+            CCompiler.Compile(directory, "-O2", "main.c f_ctrl.c");
+            var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
             var scale = reference.Max(Math.Abs);
             for (var k = 0; k < input.Count; k++)
             {

@@ -1,8 +1,8 @@
-using System.Diagnostics;
 using System.Globalization;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Export;
 using CompAssist.Core.Parsing;
+using CompAssist.Core.Tests.Support;
 
 namespace CompAssist.Core.Tests.Export;
 
@@ -41,18 +41,9 @@ public class FixedPointCodeGeneratorTests
             File.WriteAllText(Path.Combine(directory, "q_ctrl.c"), source);
             var values = string.Join(",\n", input.Select(v => v.ToString(CultureInfo.InvariantCulture)));
             File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"q_ctrl.h\"\nstatic const int32_t input[] = {\n" + values + "\n};\nint main(void)\n{\n    q_ctrl_state s;\n    unsigned i;\n    q_ctrl_init(&s);\n    for (i = 0; i < sizeof input / sizeof input[0]; ++i) {\n        printf(\"%ld\\n\", (long)q_ctrl_step(&s, input[i]));\n    }\n    return 0;\n}\n");
-            var compiler = new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.First(File.Exists);
-            var flags = "-std=c99 -Wall -Wextra -Werror -pedantic -O2";
-            using (var compile = Process.Start(new ProcessStartInfo(compiler, $"{flags} -o test main.c q_ctrl.c") { WorkingDirectory = directory, RedirectStandardError = true })!)
-            {
-                var error = compile.StandardError.ReadToEnd();
-                compile.WaitForExit();
-                Assert.True(compile.ExitCode == 0, error);
-            }
-
-            using var run = Process.Start(new ProcessStartInfo(Path.Combine(directory, "test")) { WorkingDirectory = directory, RedirectStandardOutput = true })!;
-            var outputs = run.StandardOutput.ReadToEnd().Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => long.Parse(v, CultureInfo.InvariantCulture)).ToArray();
-            run.WaitForExit();
+            CCompiler.Compile(directory, "-O2", "main.c q_ctrl.c");
+            var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output
+                .Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => long.Parse(v, CultureInfo.InvariantCulture)).ToArray();
             Assert.Equal(expected, outputs);
         }
         finally

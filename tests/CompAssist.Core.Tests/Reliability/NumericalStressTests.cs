@@ -47,12 +47,21 @@ public class NumericalStressTests
         }
     }
 
-    [Theory]
-    [MemberData(nameof(HardLoops))]
-    public void Locus_HardLoop_PointsOnLocus(string plant, double re, double im)
+    public static TheoryData<string> HardPlants()
     {
-        _ = re;
-        _ = im;
+        var data = new TheoryData<string>();
+        foreach (var row in HardLoops())
+        {
+            data.Add((string)row[0]);
+        }
+
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(HardPlants))]
+    public void Locus_HardLoop_PointsOnLocus(string plant)
+    {
         var loop = Loop.Create(ExpressionParser.ParseProper(plant).Value!);
         var locus = LocusEngine.Compute(loop);
         var open = loop.RationalOpenLoop(TransferFunction.Unity).Scaled(loop.SignFactor);

@@ -1,9 +1,9 @@
-using System.Diagnostics;
 using System.Globalization;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Export;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Synthesis;
+using CompAssist.Core.Tests.Support;
 
 namespace CompAssist.Core.Tests.Reliability;
 
@@ -14,8 +14,6 @@ namespace CompAssist.Core.Tests.Reliability;
 /// </summary>
 public class SanitizerTests
 {
-    private static string Compiler() => new[] { "/usr/bin/gcc", "/usr/bin/cc", "/usr/bin/clang" }.First(File.Exists);
-
     private static void CompileAndRun(string name, string header, string source, string main)
     {
         var directory = Directory.CreateTempSubdirectory("compassist-san-").FullName;
@@ -24,21 +22,10 @@ public class SanitizerTests
             File.WriteAllText(Path.Combine(directory, name + ".h"), header);
             File.WriteAllText(Path.Combine(directory, name + ".c"), source);
             File.WriteAllText(Path.Combine(directory, "main.c"), main);
-            using (var compile = Process.Start(new ProcessStartInfo(Compiler(), $"-std=c99 -Wall -Wextra -Werror -g -fsanitize=undefined,address -fno-sanitize-recover=all -o test main.c {name}.c") { WorkingDirectory = directory, RedirectStandardError = true })!)
-            {
-                var error = compile.StandardError.ReadToEnd();
-                compile.WaitForExit();
-                Assert.True(compile.ExitCode == 0, error);
-            }
-
-            var info = new ProcessStartInfo(Path.Combine(directory, "test")) { WorkingDirectory = directory, RedirectStandardOutput = true, RedirectStandardError = true };
-            info.Environment["ASAN_OPTIONS"] = "detect_leaks=0";
-            using var run = Process.Start(info)!;
-            var stderr = run.StandardError.ReadToEndAsync();
-            run.StandardOutput.ReadToEnd();
-            run.WaitForExit();
-            Assert.True(run.ExitCode == 0, stderr.Result);
-            Assert.DoesNotContain("runtime error", stderr.Result, StringComparison.Ordinal);
+            CCompiler.Compile(directory, "-g -fsanitize=undefined,address -fno-sanitize-recover=all", $"main.c {name}.c");
+            var run = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory, new Dictionary<string, string> { ["ASAN_OPTIONS"] = "detect_leaks=0" });
+            Assert.True(run.Code == 0, run.Error);
+            Assert.DoesNotContain("runtime error", run.Error, StringComparison.Ordinal);
         }
         finally
         {

@@ -1,0 +1,35 @@
+using System.Diagnostics;
+
+namespace CompAssist.Core.Tests.Support;
+
+/// <summary>The machine's C compiler and a way to run programs, for the tests that compile exported code.</summary>
+internal static class CCompiler
+{
+    /// <summary>The first of cc, gcc, clang found (.ci/run installs gcc when none is).</summary>
+    public static string Path() =>
+        new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.FirstOrDefault(File.Exists)
+        ?? throw new InvalidOperationException("No C compiler found; .ci/run installs gcc when it is missing.");
+
+    /// <summary>Runs a program and returns its exit code, standard output and standard error.</summary>
+    public static (int Code, string Output, string Error) Run(string file, string arguments, string directory, IReadOnlyDictionary<string, string>? environment = null)
+    {
+        var info = new ProcessStartInfo(file, arguments) { WorkingDirectory = directory, RedirectStandardOutput = true, RedirectStandardError = true };
+        foreach (var (key, value) in environment ?? new Dictionary<string, string>())
+        {
+            info.Environment[key] = value;
+        }
+
+        using var process = Process.Start(info)!;
+        var output = process.StandardOutput.ReadToEndAsync();
+        var error = process.StandardError.ReadToEndAsync();
+        process.WaitForExit();
+        return (process.ExitCode, output.Result, error.Result);
+    }
+
+    /// <summary>Compiles with -std=c99 -Wall -Wextra -Werror -pedantic plus <paramref name="flags"/>; asserts success.</summary>
+    public static void Compile(string directory, string flags, string sources)
+    {
+        var (code, _, error) = Run(Path(), $"-std=c99 -Wall -Wextra -Werror -pedantic {flags} -o test {sources}", directory);
+        Assert.True(code == 0, error);
+    }
+}
