@@ -175,19 +175,7 @@ public static class LeadDesigner
             }
 
             case LeadPlacement.Bisector:
-            {
-                var beta = Math.Atan2(s.Imaginary, s.Real);
-                var thetaZ = (beta + phi) / 2;
-                var thetaP = (beta - phi) / 2;
-                if (thetaP < minPole)
-                {
-                    return Outcome<PlacedStage>.Refused(
-                        $"The bisector construction cannot add {F(perStageDegrees)}° per stage at this target (at most {F(Angles.ToDegrees(beta))}°)",
-                        "Lower the per-stage limit to split the angle into more stages, or choose another placement.");
-                }
-
-                return FromAngles(s, thetaZ, thetaP, $"Bisector placement: zero and pole at ±{F(perStageDegrees / 2)}° about the bisector (smallest pole/zero ratio for this angle).");
-            }
+                return Bisector(s, phi, perStageDegrees);
 
             case LeadPlacement.Cancel:
                 return Cancel(loop, s, phi, perStageDegrees, stages, options.Zero);
@@ -225,6 +213,30 @@ public static class LeadDesigner
             default:
                 throw new ArgumentOutOfRangeException(nameof(options), options.Placement, "Unknown placement.");
         }
+    }
+
+    private static Outcome<PlacedStage> Bisector(Complex s, double phi, double perStageDegrees)
+    {
+        var beta = Math.Atan2(s.Imaginary, s.Real);
+        var thetaZ = (beta + phi) / 2;
+        var thetaP = (beta - phi) / 2;
+        if (thetaP < Angles.ToRadians(MinPoleAngleDegrees))
+        {
+            return Outcome<PlacedStage>.Refused(
+                $"The bisector construction cannot add {F(perStageDegrees)}° per stage at this target (at most {F(Angles.ToDegrees(beta))}°)",
+                "Lower the per-stage limit to split the angle into more stages, or choose another placement.");
+        }
+
+        return FromAngles(s, thetaZ, thetaP, $"Bisector placement: zero and pole at ±{F(perStageDegrees / 2)}° about the bisector (smallest pole/zero ratio for this angle).");
+    }
+
+    /// <summary>One bisector-placed lead stage adding <paramref name="angleDegrees"/> at s (for stages cascaded with other compensators).</summary>
+    internal static Outcome<CompensatorStage> BisectorStage(Complex s, double angleDegrees)
+    {
+        var placed = Bisector(s, Angles.ToRadians(angleDegrees), angleDegrees);
+        return placed.IsSuccess
+            ? Outcome<CompensatorStage>.Success(new CompensatorStage(CompensatorKind.Lead, placed.Value.Zero, placed.Value.Pole, angleDegrees))
+            : Outcome<CompensatorStage>.Refused(placed.Problem);
     }
 
     private static Outcome<PlacedStage> FromAngles(Complex s, double thetaZ, double thetaP, string note)

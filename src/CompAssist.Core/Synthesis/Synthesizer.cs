@@ -262,16 +262,13 @@ public static class Synthesizer
             var remaining = needed - fromDerivative;
             var stagesNeeded = (int)Math.Ceiling(remaining / lead.MaxStageAngleDegrees);
             var perStage = remaining / stagesNeeded;
-            var beta = Math.Atan2(s.Imaginary, s.Real);
-            var thetaZ = (beta + Angles.ToRadians(perStage)) / 2;
-            var thetaP = (beta - Angles.ToRadians(perStage)) / 2;
-            if (thetaP <= 0 || stagesNeeded > LeadOptions.MaxStages)
+            var stage = LeadDesigner.BisectorStage(s, perStage);
+            if (!stage.IsSuccess || stagesNeeded > LeadOptions.MaxStages)
             {
                 return Outcome<Design>.Refused($"The PID would need {F(needed)}°, beyond a derivative zero and {LeadOptions.MaxStages} lead stages", "Move the target toward the uncompensated locus.");
             }
 
-            var stage = new CompensatorStage(CompensatorKind.Lead, LeadDesigner.PointSeenUnder(s, thetaZ), LeadDesigner.PointSeenUnder(s, thetaP), perStage);
-            extraStages = [.. Enumerable.Repeat(stage, stagesNeeded)];
+            extraStages = [.. Enumerable.Repeat(stage.Value, stagesNeeded)];
         }
 
         var derivative = DerivativeStage(withPi, target, fromDerivative, slow.FilterRatio);
