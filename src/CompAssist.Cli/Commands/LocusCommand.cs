@@ -1,7 +1,6 @@
 using System.CommandLine;
 using CompAssist.Core.Locus;
 using CompAssist.Core.Numerics;
-using CompAssist.Core.Parsing;
 using CompAssist.Core.Reporting;
 using CompAssist.Core.Workflow;
 
@@ -25,35 +24,17 @@ internal static class LocusCommand
                 return code;
             }
 
-            if (input.Plant is null)
-            {
-                stderr.WriteLine("error: No plant is given. Pass --plant \"EXPR\" or a case file.");
-                return CliApplication.InputError;
-            }
-
-            var (built, fieldError, problem) = DesignWorkflow.BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
-            if (Errors.Report(fieldError, problem, false, stderr) is { } failure)
+            var read = CompensatedLoop.Read(input, parse.GetValue(compensator) ?? "1");
+            if (Errors.Report(read.FieldError, read.Problem, input.Plant is null, stderr) is { } failure)
             {
                 return failure;
             }
 
-            var c = ExpressionParser.Parse(parse.GetValue(compensator) ?? "1", requireProper: false);
-            if (!c.IsSuccess)
-            {
-                return Errors.Report(new FieldError("compensator", c.Error), null, false, stderr)!.Value;
-            }
-
-            if (!built!.OpenLoop(c.Value).IsProper)
-            {
-                stderr.WriteLine("error: The loop C·G·H has more zeros than poles, so it has no root locus.");
-                stderr.WriteLine("hint: Add a filter pole to the compensator.");
-                return CliApplication.Refused;
-            }
-
+            var built = read.Loop!;
             LocusResult result;
             try
             {
-                result = LocusEngine.Compute(built, c.Value);
+                result = LocusEngine.Compute(built, read.Compensator);
             }
             catch (RootFindingException e)
             {

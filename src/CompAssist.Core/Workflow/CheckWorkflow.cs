@@ -1,7 +1,6 @@
 using CompAssist.Core.Cases;
 using CompAssist.Core.Common;
 using CompAssist.Core.Numerics;
-using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Targets;
 
@@ -15,45 +14,29 @@ public static class CheckWorkflow
     {
         ArgumentNullException.ThrowIfNull(input);
         ArgumentNullException.ThrowIfNull(compensator);
-        if (input.Plant is null)
-        {
-            return CheckRun.Failed(new Problem("No plant is given", "Give the plant G(s) with --plant or in the case file."));
-        }
-
-        var (loop, fieldError, problem) = DesignWorkflow.BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
-        if (fieldError is not null)
+        var read = CompensatedLoop.Read(input, compensator);
+        if (read.FieldError is { } fieldError)
         {
             return CheckRun.Failed(fieldError);
         }
 
-        if (problem is not null)
+        if (read.Problem is { } problem)
         {
             return CheckRun.Failed(problem);
         }
 
-        var c = ExpressionParser.Parse(compensator, requireProper: false);
-        if (!c.IsSuccess)
-        {
-            return CheckRun.Failed(new FieldError("compensator", c.Error));
-        }
-
-        if (!loop!.OpenLoop(c.Value).IsProper)
-        {
-            return CheckRun.Failed(new Problem(
-                "The compensated loop C·G·H has more zeros than poles; its closed loop is not proper",
-                "Add a filter pole to the compensator (e.g. a derivative filter)."));
-        }
-
+        var loop = read.Loop!;
+        var c = read.Compensator!;
         var selection = TargetSelector.Select(input.Requirements);
         try
         {
-            var roots = RootFinder.Find(loop.Characteristic(c.Value)).Roots;
+            var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
             var target = selection.IsSuccess ? selection.Value : null;
-            var check = LoopCheck.Run(loop, c.Value, roots, input.Check, input.Requirements, target?.Target);
+            var check = LoopCheck.Run(loop, c, roots, input.Check, input.Requirements, target?.Target);
             RobustnessReport? robustness = null;
             if (!input.Variations.IsEmpty)
             {
-                var sweep = RobustnessSweep.Run(loop, c.Value, input.Variations, input.Check.Intervals);
+                var sweep = RobustnessSweep.Run(loop, c, input.Variations, input.Check.Intervals);
                 if (!sweep.IsSuccess)
                 {
                     return CheckRun.Failed(sweep.Problem);
@@ -62,7 +45,7 @@ public static class CheckWorkflow
                 robustness = sweep.Value;
             }
 
-            return CheckRun.Success(new CheckResult(loop, c.Value, roots, target, check, robustness));
+            return CheckRun.Success(new CheckResult(loop, c, roots, target, check, robustness));
         }
         catch (RootFindingException e)
         {

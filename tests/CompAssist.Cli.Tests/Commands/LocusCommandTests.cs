@@ -53,7 +53,7 @@ public class LocusCommandTests
     }
 
     [Theory]
-    [InlineData("--compensator", "s^2", "error: The loop C·G·H has more zeros than poles")]
+    [InlineData("--compensator", "s^2", "error: The compensated loop C·G·H has more zeros than poles")]
     [InlineData("--compensator", "(s", "error: cannot read the compensator expression:")]
     public void Locus_BadInput_NonZeroExitAndNoStdout(string flag, string value, string message)
     {
