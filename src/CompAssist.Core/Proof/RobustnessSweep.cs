@@ -13,8 +13,21 @@ public static class RobustnessSweep
     /// <summary>Largest number of variations (2¹⁰ = 1024 corners).</summary>
     public const int MaxVariations = 10;
 
-    /// <summary>Runs the sweep; refuses variations that name no plant pole.</summary>
-    public static Outcome<RobustnessReport> Run(Loop loop, TransferFunction compensator, IReadOnlyList<PlantVariation> variations, int intervals = 2000)
+    /// <summary>Number of corners a sweep of <paramref name="variationCount"/> variations visits.</summary>
+    public static int CornerCount(int variationCount) => 1 << variationCount;
+
+    /// <summary>
+    /// Runs the sweep; refuses variations that name no plant pole. <paramref name="progress"/> hears the number of
+    /// corners done after each one; <paramref name="cancellation"/> stops between corners.
+    /// </summary>
+    /// <exception cref="OperationCanceledException">The sweep was cancelled.</exception>
+    public static Outcome<RobustnessReport> Run(
+        Loop loop,
+        TransferFunction compensator,
+        IReadOnlyList<PlantVariation> variations,
+        int intervals = 2000,
+        IProgress<int>? progress = null,
+        CancellationToken cancellation = default)
     {
         ArgumentNullException.ThrowIfNull(loop);
         ArgumentNullException.ThrowIfNull(compensator);
@@ -45,7 +58,9 @@ public static class RobustnessSweep
             var factors = Enumerable.Range(0, variations.Count)
                 .Select(i => 1.0 + ((((mask >> i) & 1) == 1 ? 1 : -1) * variations[i].Percent / 100.0))
                 .ToImmutableArray();
+            cancellation.ThrowIfCancellationRequested();
             corners.Add(Corner(loop, compensator, variations, factors, intervals));
+            progress?.Report(mask + 1);
         }
 
         return Outcome<RobustnessReport>.Success(new RobustnessReport([.. variations], corners.MoveToImmutable()));

@@ -1,0 +1,273 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using CompAssist.Core.Cases;
+using CompAssist.Core.Model;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Targets;
+
+namespace CompAssist.Core.Editing;
+
+/// <summary>
+/// The text form of each <see cref="CaseField"/>: what a front end shows in the field, and how typed text
+/// becomes a new case or a positioned error. Numbers are invariant (a dot for decimals); an empty optional
+/// field clears the value.
+/// </summary>
+public static class CaseFieldText
+{
+    /// <summary>Fields that define the requirement corner: editing one puts the target back at the corner.</summary>
+    public static ImmutableArray<CaseField> CornerFields { get; } =
+        [CaseField.Overshoot, CaseField.SettlingTime, CaseField.Band, CaseField.PeakTime, CaseField.Zeta, CaseField.NaturalFrequency];
+
+    /// <summary>The text shown for a field.</summary>
+    public static string Of(CaseFile c, CaseField field)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        var r = c.Requirements;
+        return field switch
+        {
+            CaseField.Plant => c.Plant ?? string.Empty,
+            CaseField.Feedback => c.Feedback,
+            CaseField.Sign => c.Sign == FeedbackSign.Negative ? "-" : "+",
+            CaseField.PadeOrder => c.PadeOrder.ToString(CultureInfo.InvariantCulture),
+            CaseField.Overshoot => N(r.MaxOvershootPercent),
+            CaseField.SettlingTime => N(r.MaxSettlingTime),
+            CaseField.Band => ((int)r.Band).ToString(CultureInfo.InvariantCulture),
+            CaseField.PeakTime => N(r.MaxPeakTime),
+            CaseField.Zeta => N(r.Zeta),
+            CaseField.NaturalFrequency => N(r.NaturalFrequency),
+            CaseField.ErrorConstant => r.Constant is { } e ? $"{e.Symbol.ToLowerInvariant()}={N(e.Value)}" : string.Empty,
+            CaseField.ActuatorLimit => N(c.Check.ActuatorLimit),
+            CaseField.Variations => string.Join(", ", c.Variations.Select(VariationText)),
+            CaseField.PlacementValue => N(PlacementValue(c.Lead)),
+            _ => throw new ArgumentOutOfRangeException(nameof(field), field, null),
+        };
+    }
+
+    /// <summary>What the placement value means for the case's placement, or null when the placement takes none.</summary>
+    public static string? PlacementValueMeaning(LeadPlacement placement) => placement switch
+    {
+        LeadPlacement.FixedZero => "zero at",
+        LeadPlacement.FixedPole => "pole at",
+        LeadPlacement.Ratio => "pole/zero",
+        LeadPlacement.Cancel => "cancel pole",
+        _ => null,
+    };
+
+    /// <summary>Reads typed text into the case, or says where it is wrong.</summary>
+    public static FieldEdit Apply(CaseFile c, CaseField field, string text)
+    {
+        ArgumentNullException.ThrowIfNull(c);
+        ArgumentNullException.ThrowIfNull(text);
+        var r = c.Requirements;
+        switch (field)
+        {
+            case CaseField.Plant:
+            case CaseField.Feedback:
+                {
+                    var parsed = ExpressionParser.ParseProper(text);
+                    if (!parsed.IsSuccess)
+                    {
+                        return FieldEdit.Rejected(parsed.Error);
+                    }
+
+                    return FieldEdit.Accepted(field == CaseField.Plant ? c with { Plant = text.Trim() } : c with { Feedback = text.Trim() });
+                }
+
+            case CaseField.Sign:
+                return text.Trim().ToLowerInvariant() switch
+                {
+                    "-" or "negative" or "neg" => FieldEdit.Accepted(c with { Sign = FeedbackSign.Negative }),
+                    "+" or "positive" or "pos" => FieldEdit.Accepted(c with { Sign = FeedbackSign.Positive }),
+                    _ => FieldEdit.Rejected(Whole(text, "The feedback sign must be - or +", "Type - for negative feedback (the usual case) or + for positive feedback.")),
+                };
+
+            case CaseField.PadeOrder:
+                if (!int.TryParse(text.Trim(), NumberStyles.Integer, CultureInfo.InvariantCulture, out var order) || order < 1 || order > PadeApproximation.MaxOrder)
+                {
+                    return FieldEdit.Rejected(Whole(text, $"The Padé order must be a whole number from 1 to {PadeApproximation.MaxOrder}", "3 is usual; raise it for long delays."));
+                }
+
+                return FieldEdit.Accepted(c with { PadeOrder = order });
+
+            case CaseField.Band:
+                return text.Trim() switch
+                {
+                    "2" => FieldEdit.Accepted(c with { Requirements = r with { Band = SettlingBand.TwoPercent } }),
+                    "5" => FieldEdit.Accepted(c with { Requirements = r with { Band = SettlingBand.FivePercent } }),
+                    _ => FieldEdit.Rejected(Whole(text, "The settling band must be 2 or 5 (percent)", "Type 2 for the 2 % band or 5 for the 5 % band.")),
+                };
+
+            case CaseField.Overshoot:
+                return Number(text, x => x > 0 && x < 100, "an overshoot between 0 and 100 percent", v => c with { Requirements = r with { MaxOvershootPercent = v } });
+            case CaseField.SettlingTime:
+                return Number(text, x => x > 0, "a settling time above 0 s", v => c with { Requirements = r with { MaxSettlingTime = v } });
+            case CaseField.PeakTime:
+                return Number(text, x => x > 0, "a peak time above 0 s", v => c with { Requirements = r with { MaxPeakTime = v } });
+            case CaseField.Zeta:
+                return Number(text, x => x > 0 && x <= 1, "a damping ratio above 0 and at most 1", v => c with { Requirements = r with { Zeta = v } });
+            case CaseField.NaturalFrequency:
+                return Number(text, x => x > 0, "a natural frequency above 0 rad/s", v => c with { Requirements = r with { NaturalFrequency = v } });
+            case CaseField.ActuatorLimit:
+                return Number(text, x => x > 0, "an actuator limit above 0", v => c with { Check = c.Check with { ActuatorLimit = v } });
+            case CaseField.ErrorConstant:
+                return ErrorConstant(c, text);
+            case CaseField.Variations:
+                return Variations(c, text);
+            case CaseField.PlacementValue:
+                return PlacementValueEdit(c, text);
+            default:
+                throw new ArgumentOutOfRangeException(nameof(field), field, null);
+        }
+    }
+
+    private static double? PlacementValue(LeadOptions lead) => lead.Placement switch
+    {
+        LeadPlacement.FixedZero or LeadPlacement.Cancel => lead.Zero,
+        LeadPlacement.FixedPole => lead.Pole,
+        LeadPlacement.Ratio => lead.Ratio,
+        _ => null,
+    };
+
+    private static FieldEdit PlacementValueEdit(CaseFile c, string text)
+    {
+        var lead = c.Lead;
+        return lead.Placement switch
+        {
+            LeadPlacement.FixedZero or LeadPlacement.Cancel => Number(text, x => x < 0, "a zero location below 0 (left half-plane)", v => c with { Lead = lead with { Zero = v } }),
+            LeadPlacement.FixedPole => Number(text, x => x < 0, "a pole location below 0 (left half-plane)", v => c with { Lead = lead with { Pole = v } }),
+            LeadPlacement.Ratio => Number(text, x => x > 1, "a pole/zero ratio above 1", v => c with { Lead = lead with { Ratio = v } }),
+            _ => text.Trim().Length == 0
+                ? FieldEdit.Accepted(c)
+                : FieldEdit.Rejected(Whole(text, $"The {PlacementNames.NameOf(lead.Placement)} placement takes no value", "Clear the field, or pick the fixed-zero, fixed-pole, ratio or cancel placement.")),
+        };
+    }
+
+    private static FieldEdit ErrorConstant(CaseFile c, string text)
+    {
+        var r = c.Requirements;
+        var trimmed = text.Trim();
+        if (trimmed.Length == 0)
+        {
+            return FieldEdit.Accepted(c with { Requirements = r with { Constant = null } });
+        }
+
+        const string hint = "Write kp=…, kv=… or ka=… (smallest error constant), or step_error=…, ramp_error=…, parabola_error=….";
+        var eq = text.IndexOf('=', StringComparison.Ordinal);
+        if (eq < 0)
+        {
+            return FieldEdit.Rejected(Whole(text, "A steady-state requirement needs a name and a value", hint));
+        }
+
+        var name = text[..eq].Trim().ToLowerInvariant();
+        Func<double, ErrorRequirement>? make = name switch
+        {
+            "kp" => v => new ErrorRequirement(ErrorConstantKind.Position, v),
+            "kv" => v => new ErrorRequirement(ErrorConstantKind.Velocity, v),
+            "ka" => v => new ErrorRequirement(ErrorConstantKind.Acceleration, v),
+            "step_error" => ErrorRequirement.FromStepError,
+            "ramp_error" => ErrorRequirement.FromRampError,
+            "parabola_error" => ErrorRequirement.FromParabolaError,
+            _ => null,
+        };
+        if (make is null)
+        {
+            var start = text.Length - text.TrimStart().Length;
+            return FieldEdit.Rejected(new ParseError($"'{text[..eq].Trim()}' is not a steady-state requirement", hint, text, start, Math.Max(1, eq - start)));
+        }
+
+        var valueText = text[(eq + 1)..];
+        var valueStart = eq + 1 + (valueText.Length - valueText.TrimStart().Length);
+        var stepError = name == "step_error";
+        if (!double.TryParse(valueText.Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out var value) || !double.IsFinite(value) || value <= 0 || (stepError && value >= 1))
+        {
+            var what = stepError ? "a step error between 0 and 1" : "a value above 0";
+            return FieldEdit.Rejected(new ParseError($"'{valueText.Trim()}' is not {what}", hint, text, Math.Min(valueStart, text.Length), Math.Max(1, valueText.Trim().Length)));
+        }
+
+        return FieldEdit.Accepted(c with { Requirements = r with { Constant = make(value) } });
+    }
+
+    private static FieldEdit Variations(CaseFile c, string text)
+    {
+        var list = ImmutableArray.CreateBuilder<PlantVariation>();
+        var position = 0;
+        foreach (var part in text.Split(','))
+        {
+            var item = part.Trim();
+            var start = position + (part.Length - part.TrimStart().Length);
+            position += part.Length + 1;
+            if (item.Length == 0)
+            {
+                if (text.Trim().Length == 0)
+                {
+                    continue;
+                }
+
+                return FieldEdit.Rejected(new ParseError("An empty entry in the list of variations", "Separate variations by single commas.", text, Math.Min(start, text.Length), 1));
+            }
+
+            var parsed = PlantVariation.Parse(item);
+            if (!parsed.IsSuccess)
+            {
+                return FieldEdit.Rejected(new ParseError(parsed.Problem.Message, parsed.Problem.Hint, text, start, item.Length));
+            }
+
+            list.Add(parsed.Value);
+        }
+
+        if (list.Count > RobustnessSweep.MaxVariations)
+        {
+            return FieldEdit.Rejected(Whole(text, $"{list.Count} variations make too many corners", $"Vary at most {RobustnessSweep.MaxVariations} parameters at once."));
+        }
+
+        return FieldEdit.Accepted(c with { Variations = list.ToImmutable() });
+    }
+
+    private static FieldEdit Number(string text, Func<double, bool> valid, string what, Func<double?, CaseFile> apply)
+    {
+        var trimmed = text.Trim();
+        if (trimmed.Length == 0)
+        {
+            return FieldEdit.Accepted(apply(null));
+        }
+
+        if (!double.TryParse(trimmed, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !double.IsFinite(x))
+        {
+            var bad = FirstNonNumeric(text);
+            return FieldEdit.Rejected(bad >= 0
+                ? new ParseError($"'{text[bad]}' does not belong in a number", $"Type {what}, with a dot for decimals; leave the field empty for none.", text, bad, 1)
+                : Whole(text, $"'{trimmed}' is not a number", $"Type {what}, with a dot for decimals; leave the field empty for none."));
+        }
+
+        return valid(x)
+            ? FieldEdit.Accepted(apply(x))
+            : FieldEdit.Rejected(Whole(text, $"{trimmed} is out of range", $"Type {what}; leave the field empty for none."));
+    }
+
+    private static int FirstNonNumeric(string text)
+    {
+        for (var i = 0; i < text.Length; i++)
+        {
+            var ch = text[i];
+            if (!(char.IsAsciiDigit(ch) || ch is '.' or 'e' or 'E' or '+' or '-' or ' '))
+            {
+                return i;
+            }
+        }
+
+        return -1;
+    }
+
+    private static ParseError Whole(string text, string message, string hint)
+    {
+        var start = text.Length - text.TrimStart().Length;
+        return new ParseError(message, hint, text, Math.Min(start, text.Length), Math.Max(1, text.Trim().Length));
+    }
+
+    private static string VariationText(PlantVariation v) =>
+        v.Pole is { } p ? $"pole={N(p.Real)}:{N(v.Percent)}%" : $"gain={N(v.Percent)}%";
+
+    private static string N(double? x) => x is { } v ? v.ToString(CultureInfo.InvariantCulture) : string.Empty;
+}

@@ -1,0 +1,1 @@
+namespace CompAssist.Tui; internal static class Placeholder { }
