@@ -27,6 +27,13 @@ public static class CliApplication
         root.Subcommands.Add(PlotCommand.Create(stdout, stderr));
         root.Subcommands.Add(DiscretizeCommand.Create(stdout, stderr));
         root.Subcommands.Add(HandoffCommand.Create(stdout, stderr));
+        root.Subcommands.Add(EditCommand.Create(stderr));
+        if (args.Length == 0)
+        {
+            // `compassist` alone opens the editor on a new case.
+            return EditCommand.Open(null, ascii: false, noColor: false, stderr);
+        }
+
         var parse = root.Parse(args);
         try
         {

@@ -2,9 +2,6 @@ using System.CommandLine;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Export;
 using CompAssist.Core.Workflow;
-using CompAssist.Plotting;
-
-using CompAssist.Core.Cases;
 
 namespace CompAssist.Cli.Commands;
 
@@ -91,31 +88,13 @@ internal static class HandoffCommand
                 return refused;
             }
 
-            try
+            if (HandoffFiles.Write(run.Report!, package.Value!, options, folder, input.Name) is { } writeProblem)
             {
-                Directory.CreateDirectory(folder);
-                foreach (var (file, content) in package.Value!.Files)
-                {
-                    AtomicFile.Write(Path.Combine(folder, file), content);
-                }
-
-                var plot = PlotBuilder.SampledStep(input.Name, run.Report!.Check.Output, package.Value.Proof.Step);
-                PlotExporter.Write(plot, Path.Combine(folder, $"{options.Name}-step.svg"));
-                var poles = PlotBuilder.ZPlanePoles(input.Name, package.Value.Proof.ClosedLoopPoles, package.Value.Quantization.Quantized.Zeros, package.Value.Discretization.Discrete.SampleTime);
-                PlotExporter.Write(poles, Path.Combine(folder, $"{options.Name}-poles.svg"));
-            }
-            catch (IOException e)
-            {
-                stderr.WriteLine($"error: cannot write into {folder}: {e.Message}");
-                return CliApplication.InputError;
-            }
-            catch (UnauthorizedAccessException e)
-            {
-                stderr.WriteLine($"error: cannot write into {folder}: {e.Message}");
+                stderr.WriteLine($"error: {writeProblem.Message}");
                 return CliApplication.InputError;
             }
 
-            var proof = package.Value.Proof;
+            var proof = package.Value!.Proof;
             stdout.WriteLine($"wrote {package.Value.Files.Count + 2} files into {folder}");
             stdout.WriteLine($"  sample time: {package.Value.SampleTimeNote}");
             stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");

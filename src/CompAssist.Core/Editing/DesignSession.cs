@@ -77,11 +77,11 @@ public sealed class DesignSession
     /// <summary>Increases with every change; a sweep started at one revision is stale at the next.</summary>
     public int Revision { get; private set; }
 
-    /// <summary>How arrow keys move the target.</summary>
-    public MotionMode Mode { get; set; } = MotionMode.RealImaginary;
+    /// <summary>How arrow keys move the target (see <see cref="ToggleMode"/>).</summary>
+    public MotionMode Mode { get; private set; } = MotionMode.RealImaginary;
 
-    /// <summary>Coarse or fine moves.</summary>
-    public StepSize Size { get; set; } = StepSize.Coarse;
+    /// <summary>Coarse or fine moves (see <see cref="ToggleSize"/>).</summary>
+    public StepSize Size { get; private set; } = StepSize.Coarse;
 
     /// <summary>What the last action did, in one line for a status bar.</summary>
     public string Status { get; private set; } = string.Empty;
@@ -126,8 +126,14 @@ public sealed class DesignSession
         return null;
     }
 
-    /// <summary>Moves the target by one arrow-key step in the current mode and size.</summary>
-    public bool MoveTarget(MoveDirection direction)
+    /// <summary>Switches between σ/ωd moves and ζ/ωn moves.</summary>
+    public void ToggleMode() => Mode = Mode == MotionMode.RealImaginary ? MotionMode.DampingFrequency : MotionMode.RealImaginary;
+
+    /// <summary>Switches between coarse and fine steps.</summary>
+    public void ToggleSize() => Size = Size == StepSize.Coarse ? StepSize.Fine : StepSize.Coarse;
+
+    /// <summary>Moves the target by one arrow-key step in the current mode, of the current size unless <paramref name="size"/> is given.</summary>
+    public bool MoveTarget(MoveDirection direction, StepSize? size = null)
     {
         if (CurrentTarget is not { } from)
         {
@@ -135,7 +141,7 @@ public sealed class DesignSession
             return false;
         }
 
-        var to = TargetMotion.Move(from, direction, Mode, Size, MotionScale);
+        var to = TargetMotion.Move(from, direction, Mode, size ?? Size, MotionScale);
         return SetTarget(to, $"move target to {TransferFunctionFormatter.Complex(to, 4)}");
     }
 
@@ -295,7 +301,7 @@ public sealed class DesignSession
 
     private bool Commit(CaseFile next, string what, string? coalesceKey)
     {
-        if (next == Case && CaseFileWriter.Write(next) == CaseFileWriter.Write(Case))
+        if (CaseFileWriter.Write(next) == CaseFileWriter.Write(Case))
         {
             return true;
         }

@@ -1,0 +1,36 @@
+using System.Text;
+using CompAssist.Core.Export;
+using CompAssist.Core.Model;
+
+namespace CompAssist.Core.Reporting;
+
+/// <summary>A hand-off package summed up for people before it is written: sampling, coefficients, the sampled proof, warnings and the caution.</summary>
+public static class HandoffSummary
+{
+    /// <summary>The summary text (80 columns).</summary>
+    public static string Render(HandoffPackage package, HandoffOptions options, TransferFunction continuous)
+    {
+        ArgumentNullException.ThrowIfNull(package);
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(continuous);
+        var sb = new StringBuilder();
+        var proof = package.Proof;
+        sb.AppendLine($"sample time    {package.SampleTimeNote}");
+        sb.AppendLine($"method         {DiscreteReport.MethodName(options.Method)}");
+        sb.AppendLine($"number format  {options.Format}");
+        sb.AppendLine($"sections       {package.Sections.Length} (cascaded, in the order they are applied)");
+        TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples > 0 ? $", {proof.DelaySamples} samples of delay" : string.Empty)})", string.Empty, "               ");
+        var warnings = package.Quantization.Warnings.Concat(proof.Warnings).ToList();
+        foreach (var w in warnings)
+        {
+            TextWrap.AppendTo(sb, w, "! ", "  ");
+        }
+
+        sb.AppendLine($"files          {string.Join(", ", package.Files.Keys.Order(StringComparer.Ordinal))} and two SVG plots");
+        sb.AppendLine();
+        sb.Append(DiscreteReport.RenderText(continuous, package.Discretization));
+        return sb.ToString();
+    }
+
+    private static string N(double x, int digits) => TransferFunctionFormatter.Number(x, digits);
+}

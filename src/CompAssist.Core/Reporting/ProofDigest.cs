@@ -1,0 +1,72 @@
+using System.Collections.Immutable;
+using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Workflow;
+
+namespace CompAssist.Core.Reporting;
+
+/// <summary>
+/// The proof of a design in a few short items, for a compact front end (a status area of two lines):
+/// stability, target confirmation, each requirement against its measurement, margins, actuator effort,
+/// steady state and robustness. Each item says whether it passes, fails or is information only.
+/// </summary>
+public static class ProofDigest
+{
+    /// <summary>The digest of a proved design; <paramref name="robustness"/> and <paramref name="sweepNote"/> describe the sweep (done, or its progress).</summary>
+    public static ImmutableArray<DigestItem> Of(DesignReport report, RobustnessReport? robustness, string? sweepNote = null)
+    {
+        ArgumentNullException.ThrowIfNull(report);
+        var items = ImmutableArray.CreateBuilder<DigestItem>();
+        var proof = report.Proof;
+        var check = report.Check;
+        items.Add(new DigestItem(proof.Stable ? "stable" : "UNSTABLE", proof.Stable));
+        items.Add(new DigestItem(proof.TargetConfirmed ? "s* is a root" : "s* NOT a root", proof.TargetConfirmed));
+        foreach (var c in check.Checks.Where(c => c.Required is not null))
+        {
+            items.Add(new DigestItem($"{Short(c.Name)} {N(c.Measured, 3)} ≤ {N(c.Required!.Value, 3)}", c.Passes));
+        }
+
+        if (check.Checks.FirstOrDefault(c => c.Name.StartsWith("overshoot", StringComparison.Ordinal)) is { Required: null } os)
+        {
+            items.Add(new DigestItem($"OS {N(os.Measured, 3)}%", null));
+        }
+
+        if (check.Margins is { } m)
+        {
+            items.Add(new DigestItem($"PM {N(m.PhaseMarginDeg, 3)}°", m.PhaseMarginDeg >= 30 ? null : false));
+            items.Add(new DigestItem(double.IsPositiveInfinity(m.GainMarginDb) ? "GM ∞" : $"GM {N(m.GainMarginDb, 3)} dB", null));
+        }
+
+        var e = check.EffortFigures;
+        items.Add(e.Limit is { } limit
+            ? new DigestItem($"|u| {N(e.Peak, 3)} ≤ {N(limit, 3)}", !e.Saturates)
+            : new DigestItem($"|u| peak {N(e.Peak, 3)}", null));
+        if (report.Design.SteadyState is { } steady)
+        {
+            items.Add(new DigestItem($"{steady.Requirement.Symbol} {N(steady.After, 3)} ≥ {N(steady.Requirement.Value, 3)}", steady.Met));
+        }
+
+        if (robustness is not null)
+        {
+            var stable = robustness.Corners.Count(c => c.Stable);
+            items.Add(new DigestItem($"robust {stable}/{robustness.Corners.Length} stable, worst OS {N(robustness.WorstOvershootPercent, 3)}%", robustness.AllStable));
+        }
+        else if (sweepNote is not null)
+        {
+            items.Add(new DigestItem(sweepNote, null));
+        }
+
+        return items.ToImmutable();
+    }
+
+    private static string Short(string name) => name switch
+    {
+        _ when name.StartsWith("overshoot", StringComparison.Ordinal) => "OS%",
+        _ when name.StartsWith("settling time 2", StringComparison.Ordinal) => "ts2%",
+        _ when name.StartsWith("settling time 5", StringComparison.Ordinal) => "ts5%",
+        _ when name.StartsWith("peak time", StringComparison.Ordinal) => "tp",
+        _ => name,
+    };
+
+    private static string N(double x, int digits) => double.IsNaN(x) ? "n/a" : TransferFunctionFormatter.Number(x, digits);
+}

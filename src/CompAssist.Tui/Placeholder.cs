@@ -1,1 +1,0 @@
-namespace CompAssist.Tui; internal static class Placeholder { }

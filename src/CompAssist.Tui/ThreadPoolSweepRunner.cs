@@ -1,0 +1,46 @@
+using CompAssist.Core.Common;
+using CompAssist.Core.Editing;
+using CompAssist.Core.Proof;
+using Terminal.Gui.App;
+
+namespace CompAssist.Tui;
+
+/// <summary>Runs each sweep on the thread pool and posts progress and the result back through the application.</summary>
+internal sealed class ThreadPoolSweepRunner(IApplication app) : ISweepRunner
+{
+    public void Start(SweepRequest request, Action<int> progress, Action<Outcome<RobustnessReport>> done, CancellationToken cancellation)
+    {
+        var reporter = new Progress(app, progress, cancellation);
+        _ = Task.Run(
+            () =>
+            {
+                try
+                {
+                    var result = request.Run(reporter, cancellation);
+                    app.Invoke(() =>
+                    {
+                        if (!cancellation.IsCancellationRequested)
+                        {
+                            done(result);
+                        }
+                    });
+                }
+                catch (OperationCanceledException)
+                {
+                    // A newer design replaced this one; its own sweep is already running.
+                }
+            },
+            CancellationToken.None);
+    }
+
+    private sealed class Progress(IApplication app, Action<int> report, CancellationToken cancellation) : IProgress<int>
+    {
+        public void Report(int value) => app.Invoke(() =>
+        {
+            if (!cancellation.IsCancellationRequested)
+            {
+                report(value);
+            }
+        });
+    }
+}

@@ -1,0 +1,436 @@
+using System.Numerics;
+using CompAssist.Core.Cases;
+using CompAssist.Core.Editing;
+using CompAssist.Core.Targets;
+using CompAssist.Tui.Tests.Support;
+using Terminal.Gui.Drawing;
+using Terminal.Gui.Input;
+
+namespace CompAssist.Tui.Tests;
+
+public sealed class EditorWindowTests : IDisposable
+{
+    private readonly string folder = Directory.CreateTempSubdirectory("compassist-tui-").FullName;
+
+    public void Dispose() => Directory.Delete(folder, recursive: true);
+
+    private static void Close(double expected, double actual, double tolerance = 1e-9) =>
+        Assert.True(Math.Abs(expected - actual) <= tolerance, $"expected {expected}, got {actual}");
+
+    [Fact]
+    public void Screen_DemoCaseAt80x24_ShowsLoopRequirementsPictureStepAndProof()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var screen = h.Screen();
+        var rows = screen.Split('\n');
+        Assert.True(rows.Length >= 24);
+        Assert.All(rows.Take(24), r => Assert.True(r.TrimEnd('\r').Length <= 80));
+        Assert.Contains("G(s)  25/(s(s+5))", screen);
+        Assert.Contains("OS %  10", screen);
+        Assert.Contains("×", screen);
+        Assert.Contains("◆", screen);
+        Assert.Contains("C(s) = ", screen);
+        Assert.Contains("stable ✓", screen);
+        Assert.Contains("OS% ", screen);
+        Assert.Contains("F1", rows[23]);
+        Assert.True(h.Window.Plane.HasFocus, "a case with a design opens with the picture focused, ready for arrow keys");
+    }
+
+    [Fact]
+    public void ArrowLeft_OnThePicture_MovesTheTargetAndRedesignsAtOnce()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.CurrentTarget!.Value;
+        var oldDesign = h.Session.Latest.Report!.Design.Compensator.TransferFunction.ToString();
+        h.Press(Key.CursorLeft);
+        var after = h.Session.CurrentTarget!.Value;
+        Close(before.Real - 0.5, Math.Round(after.Real / 0.5) * 0.5 == after.Real ? after.Real : double.NaN, 0.5);
+        Assert.True(after.Real < before.Real);
+        Close(before.Imaginary, after.Imaginary);
+        var newDesign = h.Session.Latest.Report!.Design.Compensator.TransferFunction.ToString();
+        Assert.NotEqual(oldDesign, newDesign);
+        var screen = h.Screen();
+        Assert.Contains($"s* {Core.Model.TransferFunctionFormatter.Number(after.Real, 4)} ±", screen);
+        Assert.Contains("C(s) = " + newDesign, screen);
+        Assert.Contains("● unsaved", screen);
+    }
+
+    [Fact]
+    public void ShiftArrow_OnThePicture_TakesOneFineStep()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.CurrentTarget!.Value;
+        h.Press(Key.CursorUp.WithShift);
+        var after = h.Session.CurrentTarget!.Value;
+        // One fine step, landing on the fine grid: between half a step and one and a half.
+        var fine = TargetMotion.LengthStep(h.Session.MotionScale, StepSize.Fine);
+        Assert.InRange(after.Imaginary - before.Imaginary, 0.5 * fine, 1.5 * fine);
+        Assert.Equal(0.0, Math.Round(after.Imaginary / fine) - (after.Imaginary / fine), 9);
+        Assert.Equal(StepSize.Coarse, h.Session.Size);
+    }
+
+    [Fact]
+    public void ModeKey_ThenLeft_MovesAlongTheConstantDampingRay()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.CurrentTarget!.Value;
+        h.Press(Key.M, Key.CursorLeft);
+        var after = h.Session.CurrentTarget!.Value;
+        Close(-before.Real / before.Magnitude, -after.Real / after.Magnitude, 1e-12);
+        Assert.True(after.Magnitude > before.Magnitude);
+        Assert.Contains("ζ/ωn", h.Screen());
+    }
+
+    [Fact]
+    public void CtrlZ_AfterTwoMoves_UndoesOneAtATimeAndCtrlYRedoes()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var start = h.Session.CurrentTarget!.Value;
+        h.Press(Key.CursorLeft);
+        var middle = h.Session.CurrentTarget!.Value;
+        h.Press(Key.CursorUp);
+        h.Press(Key.Z.WithCtrl);
+        Assert.Equal(middle, h.Session.CurrentTarget!.Value);
+        h.Press(Key.Z.WithCtrl);
+        Assert.Equal(start, h.Session.CurrentTarget!.Value);
+        Assert.DoesNotContain("unsaved", h.Screen());
+        h.Press(Key.Y.WithCtrl);
+        Assert.Equal(middle, h.Session.CurrentTarget!.Value);
+        Assert.Contains("redid", h.Window.Message);
+    }
+
+    [Fact]
+    public void CornerKey_AfterMoves_SnapsBackToTheRequirementCorner()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var corner = TargetSelector.Select(h.Session.Case.Requirements).Value!.Target.Point;
+        h.Press(Key.CursorLeft, Key.CursorLeft, Key.CursorDown, Key.C);
+        Assert.Equal(corner, h.Session.CurrentTarget!.Value);
+    }
+
+    [Fact]
+    public void TypedTarget_ExactPoint_IsDesignedThere()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.T);
+        Assert.StartsWith("target s*", h.Window.PromptText);
+        h.Press(Enumerable.Repeat(Key.Backspace, 40).ToArray());
+        h.Type("-4, 5");
+        h.Press(Key.Enter);
+        Assert.Null(h.Window.PromptText);
+        Assert.Equal(new Complex(-4, 5), h.Session.CurrentTarget!.Value);
+        Assert.True(h.Session.Latest.IsSuccess);
+        Assert.Contains("s* -4 ± 5j", h.Screen());
+    }
+
+    [Fact]
+    public void TypedTarget_Garbage_KeepsThePromptOpenWithTheReason()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.CurrentTarget;
+        h.Press(Key.F5);
+        h.Press(Enumerable.Repeat(Key.Backspace, 40).ToArray());
+        h.Type("-4, 5q");
+        h.Press(Key.Enter);
+        Assert.NotNull(h.Window.PromptText);
+        Assert.Contains("does not belong", h.Screen());
+        Assert.Equal(before, h.Session.CurrentTarget);
+        h.Press(Key.Esc);
+        Assert.Null(h.Window.PromptText);
+    }
+
+    [Fact]
+    public void ImpossibleTarget_ShowsWhyInPlaceAndKeepsTheLastGoodDesign()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var good = h.Session.LastGood!.Design.Compensator.TransferFunction.ToString();
+        h.Press(Key.T);
+        h.Press(Enumerable.Repeat(Key.Backspace, 40).ToArray());
+        h.Type("1, 4");
+        h.Press(Key.Enter);
+        Assert.False(h.Session.Latest.IsSuccess);
+        var screen = h.Screen();
+        Assert.Contains("REFUSED", screen);
+        Assert.Contains("last good C(s) = " + good, screen);
+        Assert.Contains("✗", screen);
+        Assert.Contains("◆", screen);
+        h.Press(Key.Z.WithCtrl);
+        Assert.True(h.Session.Latest.IsSuccess);
+        Assert.DoesNotContain("REFUSED", h.Screen());
+    }
+
+    [Fact]
+    public void FieldTyping_UnclosedParenthesis_ShowsTheErrorUnderTheFieldWithACaret()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Window.BoxOf(CaseField.Plant).SetFocus();
+        h.Press(Enumerable.Repeat(Key.Backspace, 30).ToArray());
+        h.Type("25/(s(s+5)");
+        var error = h.Window.ErrorOf(CaseField.Plant);
+        Assert.NotNull(error);
+        var rows = h.Screen().Split('\n');
+        var fieldRow = Array.FindIndex(rows, r => r.StartsWith("G(s)", StringComparison.Ordinal));
+        Assert.Contains("G(s)!", rows[fieldRow]);
+        var caretColumn = rows[fieldRow + 1].IndexOf('^', StringComparison.Ordinal);
+        Assert.Equal(rows[fieldRow].IndexOf("25/", StringComparison.Ordinal) + error.Index, caretColumn);
+        Assert.Contains(error.Message, rows[fieldRow + 2]);
+        h.Type(")");
+        Assert.Null(h.Window.ErrorOf(CaseField.Plant));
+        Assert.Equal("25/(s(s+5))", h.Session.Case.Plant);
+        Assert.DoesNotContain("^", h.Screen().Split('\n')[fieldRow + 1]);
+    }
+
+    [Fact]
+    public void FieldTyping_NewRequirement_RedesignsForTheNewCorner()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Window.BoxOf(CaseField.Overshoot).SetFocus();
+        h.Press(Enumerable.Repeat(Key.Backspace, 10).ToArray());
+        h.Type("5");
+        Assert.Equal(5.0, h.Session.Case.Requirements.MaxOvershootPercent);
+        var corner = TargetSelector.Select(h.Session.Case.Requirements).Value!.Target.Point;
+        Assert.Equal(corner, h.Session.CurrentTarget!.Value);
+        Assert.Contains("≤ 5 ", h.Screen());
+    }
+
+    [Fact]
+    public void CompensatorKey_F3_SwitchesToLagAndShowsIt()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.F3);
+        Assert.Equal("lag", h.Session.Case.CompensatorType);
+        Assert.Contains("│ lag │", h.Screen());
+        h.Press(Key.F3.WithShift);
+        Assert.Equal("lead", h.Session.Case.CompensatorType);
+    }
+
+    [Fact]
+    public void SaveKey_ThenReopen_RoundTripsTheMovedTarget()
+    {
+        var session = EditorHarness.Demo(folder);
+        Complex moved;
+        using (var h = new EditorHarness(session))
+        {
+            h.Press(Key.CursorLeft, Key.CursorUp, Key.S.WithCtrl);
+            moved = h.Session.CurrentTarget!.Value;
+            Assert.False(h.Session.IsDirty);
+            Assert.Contains("saved belt-axis.toml", h.Window.Message);
+        }
+
+        var (reread, error) = CaseFileReader.ReadFile(Path.Combine(folder, "belt-axis.toml"));
+        Assert.Null(error);
+        using var again = new EditorHarness(new DesignSession(reread!, Path.Combine(folder, "belt-axis.toml"), folder));
+        Assert.Equal(moved, again.Session.CurrentTarget!.Value);
+        Assert.DoesNotContain("unsaved", again.Screen());
+    }
+
+    [Fact]
+    public void SaveKey_NewCase_AsksForANameAndWritesThere()
+    {
+        using var h = new EditorHarness(new DesignSession(new CaseFile(), null, folder));
+        Assert.True(h.Window.BoxOf(CaseField.Plant).HasFocus, "a new case opens in the plant field");
+        h.Type("10/(s(s+2))");
+        h.Window.BoxOf(CaseField.Zeta).SetFocus();
+        h.Type("0.5");
+        h.Window.BoxOf(CaseField.NaturalFrequency).SetFocus();
+        h.Type("4");
+        Assert.True(h.Session.Latest.IsSuccess);
+        h.Press(Key.S.WithCtrl);
+        Assert.StartsWith("save as", h.Window.PromptText);
+        h.Press(Enumerable.Repeat(Key.Backspace, 200).ToArray());
+        var path = Path.Combine(folder, "mine.toml");
+        h.Type(path);
+        h.Press(Key.Enter);
+        Assert.True(File.Exists(path));
+        Assert.Equal(path, h.Session.Path);
+        Assert.Equal("10/(s(s+2))", CaseFileReader.ReadFile(path).Case!.Plant);
+    }
+
+    [Fact]
+    public void QuitKey_WithUnsavedWork_AsksAndDiscardRemovesTheAutosave()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.CursorLeft);
+        h.Window.AutosaveNow();
+        var autosave = h.Session.AutosavePath;
+        Assert.True(File.Exists(autosave));
+        h.Press(Key.Q.WithCtrl);
+        Assert.False(h.Window.QuitRequested);
+        Assert.Contains("Unsaved changes", h.Window.PromptText);
+        h.Press(Key.Esc);
+        Assert.False(h.Window.QuitRequested);
+        h.Press(Key.Q.WithCtrl);
+        h.Press(Key.D);
+        Assert.True(h.Window.QuitRequested);
+        Assert.False(File.Exists(autosave));
+    }
+
+    [Fact]
+    public void QuitKey_SaveAndQuit_WritesTheCaseThenQuits()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.CursorDown);
+        var moved = h.Session.Case.Requirements.Point;
+        h.Press(Key.Esc, Key.S);
+        Assert.True(h.Window.QuitRequested);
+        Assert.Equal(moved, CaseFileReader.ReadFile(Path.Combine(folder, "belt-axis.toml")).Case!.Requirements.Point);
+    }
+
+    [Fact]
+    public void QuitKey_NothingUnsaved_QuitsAtOnce()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.Q.WithCtrl);
+        Assert.True(h.Window.QuitRequested);
+    }
+
+    [Fact]
+    public void Autosave_FoundWhenReopening_IsOfferedAndRestored()
+    {
+        Complex moved;
+        using (var h = new EditorHarness(EditorHarness.Demo(folder)))
+        {
+            h.Press(Key.CursorLeft, Key.CursorLeft);
+            moved = h.Session.CurrentTarget!.Value;
+            h.Window.AutosaveNow();
+        }
+
+        // The session "dropped": the case file is unchanged, the autosave beside it holds the work.
+        var path = Path.Combine(folder, "belt-axis.toml");
+        var autosave = AutosaveFiles.NewerThanCase(path, folder);
+        Assert.NotNull(autosave);
+        using var again = new EditorHarness(new DesignSession(CaseFileReader.ReadFile(path).Case!, path, folder));
+        again.Window.OfferAutosave(autosave);
+        Assert.Contains("autosaved", again.Window.PromptText);
+        again.Press(Key.R);
+        Assert.Equal(moved, again.Session.CurrentTarget!.Value);
+        Assert.True(again.Session.IsDirty);
+    }
+
+    [Fact]
+    public void RobustnessSweep_RunsBesideInputAndShowsProgressThenTheResult()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        Assert.Equal(1, h.Sweeps.Pending);
+        Assert.Contains("robustness 0/4…", h.Screen());
+        h.Press(Key.CursorLeft);
+        Assert.Equal(h.Session.CurrentTarget, h.Session.CurrentTarget);
+        h.Sweeps.RunAll();
+        var screen = h.Screen();
+        Assert.Contains("robust 4/4 stable", screen);
+        Assert.NotNull(h.Session.Robustness);
+    }
+
+    [Fact]
+    public void HelpKey_ListsEveryKeyOfTheTable()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.F1);
+        Assert.Equal("help", h.Window.OpenPage);
+        var help = h.Window.HelpText();
+        string? lastLabel = null;
+        foreach (var k in h.Window.Keys)
+        {
+            if (k.Label.Length == 0)
+            {
+                // Listed with the key before it, which must be in the same place.
+                Assert.NotNull(lastLabel);
+                continue;
+            }
+
+            Assert.Contains(k.Label, help);
+            Assert.Contains(k.What.Split(' ')[0], help);
+            lastLabel = k.Label;
+        }
+
+        Assert.All(help.Split('\n'), line => Assert.True(line.TrimEnd('\r').Length <= 80, line));
+        Assert.Contains("CompAssist keys", h.Screen());
+        h.Press(Key.Esc);
+        Assert.Equal(string.Empty, h.Window.OpenPage);
+        Assert.False(h.Window.QuitRequested);
+    }
+
+    [Fact]
+    public void ReportKey_F7_ShowsTheFullProofAndScrolls()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        h.Press(Key.F7);
+        Assert.Equal("report", h.Window.OpenPage);
+        var first = h.Screen();
+        Assert.Contains("Design report", first);
+        h.Press(Key.PageDown, Key.PageDown);
+        Assert.NotEqual(first, h.Screen());
+        h.Press(Key.End);
+        var lastLine = Core.Reporting.DesignTextReport.Render(h.Session.Latest.Report!).TrimEnd().Split('\n')[^1].Trim();
+        Assert.Contains(lastLine, h.Screen());
+    }
+
+    [Fact]
+    public void HandoffKey_F8_ShowsTheCautionCyclesTheMethodAndWritesThroughTheWriter()
+    {
+        string? writtenTo = null;
+        using var h = new EditorHarness(EditorHarness.Demo(folder), writer: (_, package, _, dir, _) =>
+        {
+            writtenTo = dir;
+            Assert.NotEmpty(package.Files);
+            return null;
+        });
+        h.Press(Key.F8);
+        Assert.Equal("handoff", h.Window.OpenPage);
+        var screen = h.Screen();
+        Assert.Contains("CAUTION", screen);
+        Assert.Contains("emergency stop", screen);
+        Assert.Contains("method         tustin", screen);
+        h.Press(Key.M);
+        Assert.Contains("method         prewarp", h.Screen());
+        h.Press(Key.W);
+        Assert.StartsWith("write the package", h.Window.PromptText);
+        h.Press(Key.Enter);
+        Assert.Equal(Path.Combine(folder, "belt_axis-handoff"), writtenTo);
+        Assert.Contains("Read its caution", h.Window.Message);
+    }
+
+    [Fact]
+    public void NoColour_EveryCellUsesTheTerminalsOwnColours()
+    {
+        using var plain = new EditorHarness(EditorHarness.Demo(folder), noColour: true);
+        plain.Screen();
+        Assert.All(Cells(plain), a => Assert.True(a.Foreground == Color.None && a.Background == Color.None, a.ToString()));
+        Assert.DoesNotMatch(@"\x1b\[[0-9;]*(3[0-7]|9[0-7]|4[0-7]|10[0-7]|38;|48;)[0-9;]*m", plain.Ansi());
+
+        using var coloured = new EditorHarness(EditorHarness.Demo(folder, "gimbal-tilt.toml"));
+        coloured.Screen();
+        Assert.Contains(Cells(coloured), a => a.Foreground != Color.None);
+    }
+
+    private static List<Terminal.Gui.Drawing.Attribute> Cells(EditorHarness h)
+    {
+        var contents = h.App.Driver!.Contents!;
+        var list = new List<Terminal.Gui.Drawing.Attribute>();
+        for (var r = 0; r < contents.GetLength(0); r++)
+        {
+            for (var c = 0; c < contents.GetLength(1); c++)
+            {
+                if (contents[r, c].Attribute is { } a)
+                {
+                    list.Add(a);
+                }
+            }
+        }
+
+        return list;
+    }
+
+    [Fact]
+    public void Screen_At120x40_UsesTheRoomForTheLargerPicture()
+    {
+        using var small = new EditorHarness(EditorHarness.Demo(folder));
+        small.Screen();
+        using var large = new EditorHarness(EditorHarness.Demo(folder, "pump-pressure.toml"), 120, 40);
+        var screen = large.Screen();
+        Assert.Contains("C(s) = ", screen);
+        var smallRows = small.Window.PlanePicture.Split('\n').Length;
+        var largeRows = large.Window.PlanePicture.Split('\n').Length;
+        Assert.True(largeRows > smallRows, $"{largeRows} rows at 120×40, {smallRows} at 80×24");
+    }
+}

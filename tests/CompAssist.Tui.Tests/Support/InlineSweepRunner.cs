@@ -1,0 +1,42 @@
+using CompAssist.Core.Common;
+using CompAssist.Core.Editing;
+using CompAssist.Core.Proof;
+
+namespace CompAssist.Tui.Tests.Support;
+
+/// <summary>Holds sweeps until the test lets them run, so a test can look at the screen while one is pending.</summary>
+internal sealed class InlineSweepRunner : ISweepRunner
+{
+    private readonly List<(SweepRequest Request, Action<int> Progress, Action<Outcome<RobustnessReport>> Done, CancellationToken Token)> pending = [];
+
+    public int Started { get; private set; }
+
+    public int Pending => pending.Count;
+
+    public void Start(SweepRequest request, Action<int> progress, Action<Outcome<RobustnessReport>> done, CancellationToken cancellation)
+    {
+        Started++;
+        pending.Add((request, progress, done, cancellation));
+    }
+
+    /// <summary>Runs every pending sweep that was not cancelled, as the thread pool would, and delivers the results.</summary>
+    public void RunAll()
+    {
+        var now = pending.ToList();
+        pending.Clear();
+        foreach (var (request, progress, done, token) in now)
+        {
+            if (token.IsCancellationRequested)
+            {
+                continue;
+            }
+
+            done(request.Run(new Reporter(progress), token));
+        }
+    }
+
+    private sealed class Reporter(Action<int> report) : IProgress<int>
+    {
+        public void Report(int value) => report(value);
+    }
+}
