@@ -47,6 +47,15 @@ public static class QuickRun
                 fields.Add($"\"{name}_p95_ms\": {p95.ToString("0.0000", CultureInfo.InvariantCulture)}");
             }
 
+            if (order >= 10)
+            {
+                // Key press to finished frame in the editor at 80×24 (budget 16 ms at order 10).
+                using var editor = new EditorFrame(order);
+                var (k50, k95) = Percentiles(editor.KeyToFrame);
+                fields.Add($"\"editor_key_to_frame_p50_ms\": {k50.ToString("0.0000", CultureInfo.InvariantCulture)}");
+                fields.Add($"\"editor_key_to_frame_p95_ms\": {k95.ToString("0.0000", CultureInfo.InvariantCulture)}");
+            }
+
             var allocated = GC.GetAllocatedBytesForCurrentThread();
             RedesignWork.Run(c);
             fields.Add($"\"redesign_alloc_kb\": {((GC.GetAllocatedBytesForCurrentThread() - allocated) / 1024.0).ToString("0.0", CultureInfo.InvariantCulture)}");
