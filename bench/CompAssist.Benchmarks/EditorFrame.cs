@@ -7,16 +7,16 @@ using CompAssist.Core.Targets;
 using CompAssist.Tui;
 using Terminal.Gui.App;
 using Terminal.Gui.Input;
-using Terminal.Gui.Testing;
 using Terminal.Gui.Time;
 
 namespace CompAssist.Benchmarks;
 
 /// <summary>
 /// The editor at 80×24 on the ANSI driver with no terminal attached, holding a benchmark loop. One
-/// <see cref="KeyToFrame"/> is what a key press costs: the arrow key through the editor's key table, the
-/// redesign and re-proof, and a complete layout and draw of every view into the screen buffer (forced, so an
-/// upper bound on a real frame). Writing the frame to a terminal is not included.
+/// <see cref="KeyToFrame"/> is what a key press costs from the application's key event on: the editor's key
+/// table, the redesign and re-proof, the views updated, and the layout and draw the main loop then does (every
+/// view that changed, which after a move is nearly the whole screen). Parsing the terminal's input bytes and
+/// writing the frame out to the terminal are not included.
 /// </summary>
 public sealed class EditorFrame : IDisposable
 {
@@ -27,13 +27,7 @@ public sealed class EditorFrame : IDisposable
     public EditorFrame(int order)
     {
         Environment.SetEnvironmentVariable("DisableRealDriverIO", "1");
-        var loop = BenchmarkLoop.OfOrder(order);
-        var c = new CaseFile
-        {
-            Name = $"benchmark order {order}",
-            Plant = PlantText(loop),
-            Requirements = new Requirements { Point = loop.Target.Point },
-        };
+        var c = CaseOf(order);
         app = Application.Create(new VirtualTimeProvider());
         app.Init("ansi");
         app.Driver!.SetScreenSize(80, 24);
@@ -54,9 +48,24 @@ public sealed class EditorFrame : IDisposable
     public object KeyToFrame()
     {
         left = !left;
-        app.InjectKey(left ? Key.CursorLeft : Key.CursorRight);
-        app.LayoutAndDraw(true);
+        app.Keyboard.RaiseKeyDownEvent(left ? Key.CursorLeft : Key.CursorRight);
+        app.LayoutAndDraw(false);
         return window.Session.Revision;
+    }
+
+    /// <summary>The session's part of a key press alone (redesign and re-proof through the workflow), without drawing.</summary>
+    public object SessionMove()
+    {
+        left = !left;
+        window.Session.MoveTarget(left ? MoveDirection.Left : MoveDirection.Right);
+        return window.Session.Revision;
+    }
+
+    /// <summary>Drawing alone: a forced layout and draw of the whole screen with nothing changed.</summary>
+    public object DrawOnly()
+    {
+        app.LayoutAndDraw(true);
+        return window;
     }
 
     /// <summary>The screen as text (to check the frame is the editor's).</summary>
@@ -66,6 +75,18 @@ public sealed class EditorFrame : IDisposable
     {
         window.Dispose();
         app.Dispose();
+    }
+
+    /// <summary>The benchmark loop of this order as a case, the target given as a point.</summary>
+    public static CaseFile CaseOf(int order)
+    {
+        var loop = BenchmarkLoop.OfOrder(order);
+        return new CaseFile
+        {
+            Name = $"benchmark loop of order {order}",
+            Plant = PlantText(loop),
+            Requirements = new Requirements { Point = loop.Target.Point },
+        };
     }
 
     private static string PlantText(BenchmarkLoop loop)

@@ -1,6 +1,19 @@
 using BenchmarkDotNet.Running;
 using CompAssist.Benchmarks;
 
+if (args.Length == 2 && args[0] == "--write-cases")
+{
+    // Case files of the benchmark loops, for timing the real editor in a terminal (bench/editor-key-to-frame.sh).
+    foreach (var order in new[] { 10, 20 })
+    {
+        var path = Path.Combine(args[1], $"order{order}.toml");
+        CompAssist.Core.Cases.CaseFileWriter.Save(EditorFrame.CaseOf(order), path);
+        Console.WriteLine(path);
+    }
+
+    return 0;
+}
+
 if (args.Contains("--quick"))
 {
     var orders = args.Where(a => int.TryParse(a, out _)).Select(int.Parse).DefaultIfEmpty(4).ToList();

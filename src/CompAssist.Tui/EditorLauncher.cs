@@ -45,6 +45,7 @@ public static class EditorLauncher
             app.Init();
             var window = new EditorWindow(session, palette, new ThreadPoolSweepRunner(app), handoffWriter, asciiPictures ? PictureStyle.Ascii : PictureStyle.Unicode);
             app.Keyboard.KeyDown += window.OnApplicationKey;
+            window.Timer = FrameTimer.Attach(app, Environment.GetEnvironmentVariable);
             window.StartAutosave(app);
             if (AutosaveFiles.NewerThanCase(session.Path, session.WorkingDirectory) is { } autosave)
             {

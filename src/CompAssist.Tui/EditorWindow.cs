@@ -60,6 +60,7 @@ internal sealed class EditorWindow : Runnable
     private Prompt? prompt;
     private HandoffOptions handoffOptions = new();
     private int lastAutosavedRevision = -1;
+    private string? formSignature;
 
     /// <summary>Builds the screen over a session.</summary>
     public EditorWindow(DesignSession session, Palette palette, ISweepRunner? sweeps, HandoffWriter? handoffWriter, PictureStyle style)
@@ -95,6 +96,7 @@ internal sealed class EditorWindow : Runnable
         AddField(CaseField.PlacementValue, "value", 14, 0, 12, FormWidth - 12);
         Add(bar, compensatorLine, errorCaret, errorMessage, planeHeading, plane, stepHeading, step, designLine, digest, message, hints, promptBox, page);
         BuildKeys();
+        PlaceFixedViews();
         LayoutScreen();
         RefreshAll(reframe: true, refreshFields: true);
         Initialized += (_, _) => FocusStart();
@@ -309,6 +311,9 @@ internal sealed class EditorWindow : Runnable
         Act(() => Session.MoveTarget(direction, key.IsShift ? StepSize.Fine : null), reframe: false);
     }
 
+    /// <summary>Times key presses to frames when the benchmarks ask for it (see <see cref="FrameTimer"/>).</summary>
+    internal FrameTimer? Timer { get; set; }
+
     /// <summary>The application-wide key hook (installed by the launcher and the tests).</summary>
     public void OnApplicationKey(object? sender, Key key)
     {
@@ -316,6 +321,7 @@ internal sealed class EditorWindow : Runnable
         if (HandleKey(key))
         {
             key.Handled = true;
+            Timer?.KeyHandled();
         }
     }
 
@@ -366,48 +372,9 @@ internal sealed class EditorWindow : Runnable
         RefreshChrome();
     }
 
-    private void LayoutScreen()
+    // Views whose place never changes: set once (setting a Pos or Dim invalidates the layout).
+    private void PlaceFixedViews()
     {
-        var focused = fields.FirstOrDefault(f => f.Box.HasFocus && f.Error is not null);
-        var shiftFrom = focused?.Row ?? int.MaxValue;
-        int RowOf(int row) => row > shiftFrom ? row + 2 : row;
-        foreach (var (label, row) in headings)
-        {
-            label.Y = RowOf(row);
-        }
-
-        foreach (var f in fields)
-        {
-            f.Label.Y = RowOf(f.Row);
-            f.Box.Y = RowOf(f.Row);
-            if (f.Field == CaseField.PlacementValue)
-            {
-                // Only the fixed-zero, fixed-pole, ratio and cancel placements take a value.
-                f.Box.Visible = CaseFieldText.PlacementValueMeaning(Session.Case.Lead.Placement) is not null && Session.Case.CompensatorType is "lead" or "lead-lag";
-            }
-
-            f.Label.Text = f.Field == CaseField.PlacementValue ? PlacementValueLabel() : f.Label.Text;
-            var marker = f.Error is not null ? "!" : string.Empty;
-            f.Label.Text = (f.Label.Text ?? string.Empty).TrimEnd('!') + marker;
-        }
-
-        compensatorLine.Y = RowOf(13);
-        if (focused?.Error is { } e)
-        {
-            var caretColumn = Math.Clamp(focused.BoxX + e.Index, 0, FormWidth - 1);
-            errorCaret.Y = focused.Row + 1;
-            errorCaret.Text = new string(' ', caretColumn) + new string('^', Math.Clamp(e.Length, 1, FormWidth - caretColumn));
-            errorMessage.Y = focused.Row + 2;
-            errorMessage.Text = TextPage.Fit(e.Message, FormWidth);
-            errorCaret.Visible = true;
-            errorMessage.Visible = true;
-        }
-        else
-        {
-            errorCaret.Visible = false;
-            errorMessage.Visible = false;
-        }
-
         var bottom = Pos.AnchorEnd(BottomRows);
         bar.Width = Dim.Fill();
         planeHeading.Width = Dim.Fill();
@@ -427,8 +394,67 @@ internal sealed class EditorWindow : Runnable
         promptBox.Y = Pos.AnchorEnd(2);
         hints.Y = Pos.AnchorEnd(1);
         hints.Width = Dim.Fill();
+    }
+
+    // The form: rows below a field that shows an error move down by the two error rows. Only redone when
+    // what it depends on changed, so that a target move does not lay the whole screen out again.
+    private void LayoutScreen()
+    {
+        var focused = fields.FirstOrDefault(f => f.Box.HasFocus && f.Error is not null);
+        var placementVisible = CaseFieldText.PlacementValueMeaning(Session.Case.Lead.Placement) is not null && Session.Case.CompensatorType is "lead" or "lead-lag";
+        var signature = $"{focused?.Field}|{focused?.Error}|{placementVisible}|{PlacementValueLabel()}|{string.Concat(fields.Select(f => f.Error is null ? '.' : '!'))}";
+        if (signature == formSignature)
+        {
+            return;
+        }
+
+        formSignature = signature;
+        var shiftFrom = focused?.Row ?? int.MaxValue;
+        int RowOf(int row) => row > shiftFrom ? row + 2 : row;
+        foreach (var (label, row) in headings)
+        {
+            label.Y = RowOf(row);
+        }
+
+        foreach (var f in fields)
+        {
+            f.Label.Y = RowOf(f.Row);
+            f.Box.Y = RowOf(f.Row);
+            var text = f.Field == CaseField.PlacementValue ? PlacementValueLabel() : f.BaseLabel;
+            f.Label.Text = text + (f.Error is not null ? "!" : string.Empty);
+            if (f.Field == CaseField.PlacementValue)
+            {
+                // Only the fixed-zero, fixed-pole, ratio and cancel placements take a value.
+                f.Box.Visible = placementVisible;
+            }
+        }
+
+        compensatorLine.Y = RowOf(13);
+        if (focused?.Error is { } e)
+        {
+            var caretColumn = Math.Clamp(focused.BoxX + e.Index, 0, FormWidth - 1);
+            errorCaret.Y = focused.Row + 1;
+            errorCaret.Text = new string(' ', caretColumn) + new string('^', Math.Clamp(e.Length, 1, FormWidth - caretColumn));
+            errorMessage.Y = focused.Row + 2;
+            errorMessage.Text = TextPage.Fit(e.Message, FormWidth);
+            errorCaret.Visible = true;
+            errorMessage.Visible = true;
+        }
+        else
+        {
+            errorCaret.Visible = false;
+            errorMessage.Visible = false;
+        }
+
         SetNeedsLayout();
-        SetNeedsDraw();
+    }
+
+    private static void SetText(View view, string text)
+    {
+        if (view.Text != text)
+        {
+            view.Text = text;
+        }
     }
 
     private string PlacementValueLabel() => CaseFieldText.PlacementValueMeaning(Session.Case.Lead.Placement) ?? string.Empty;
@@ -489,31 +515,32 @@ internal sealed class EditorWindow : Runnable
         var mode = s.Mode == MotionMode.RealImaginary ? "σ/ωd" : "ζ/ωn";
         var size = s.Size == StepSize.Coarse ? "coarse" : "fine";
         var stepLength = TransferFunctionFormatter.Number(TargetMotion.LengthStep(s.MotionScale, s.Size), 3);
-        bar.Text = $" CompAssist │ {name}{dirty} │ {kind}{placement} │ {mode} {size} {stepLength} │ F1 keys";
-        compensatorLine.Text = TextPage.Fit($"kind {kind}{(placement.Length > 0 ? "  placement " + PlacementNames.NameOf(s.Case.Lead.Placement) : string.Empty)}", FormWidth);
+        var full = $" CompAssist │ {name}{dirty} │ {kind}{placement} │ {mode} {size} {stepLength} │ F1 keys";
+        var columns = Frame.Width > 0 ? Frame.Width : 80;
+        SetText(bar, full.Length <= columns ? full : $" {name}{dirty} │ {kind}{placement} │ {mode} {size} {stepLength} │ F1 keys");
+        SetText(compensatorLine, TextPage.Fit($"kind {kind}{(placement.Length > 0 ? "  placement " + PlacementNames.NameOf(s.Case.Lead.Placement) : string.Empty)}", FormWidth));
 
         var target = s.CurrentTarget;
-        planeHeading.Text = target is { } t
+        SetText(planeHeading, target is { } t
             ? $"{(plane.HasFocus ? "▶" : " ")}s* {TransferFunctionFormatter.Number(t.Real, 4)} ± {TransferFunctionFormatter.Number(t.Imaginary, 4)}j  ζ {TransferFunctionFormatter.Number(t.Magnitude > 0 ? -t.Real / t.Magnitude : 1, 3)}  ωn {TransferFunctionFormatter.Number(t.Magnitude, 4)}"
-            : " s-plane (no target yet)";
-        stepHeading.Text = s.Latest.IsSuccess || s.LastGood is null ? "step (closed loop, unit reference)" : "step of the LAST GOOD design";
+            : " s-plane (no target yet)");
+        SetText(stepHeading, s.Latest.IsSuccess || s.LastGood is null ? "step (closed loop, unit reference)" : "step of the LAST GOOD design");
 
         if (s.Latest.Report is { } report)
         {
-            designLine.Text = $"C(s) = {report.Design.Compensator.TransferFunction}";
+            SetText(designLine, $"C(s) = {report.Design.Compensator.TransferFunction}");
             digest.Show(ProofDigest.Of(report, s.Robustness, sweepNote));
         }
         else
         {
             var why = s.Latest.FieldError is { } fe ? $"{FieldNames.Of(FieldOf(fe.Field))}: {fe.Error.Message}" : s.Latest.Problem?.ToString() ?? "no design";
-            designLine.Text = s.LastGood is { } good ? $"last good C(s) = {good.Design.Compensator.TransferFunction}" : "no design yet";
+            SetText(designLine, s.LastGood is { } good ? $"last good C(s) = {good.Design.Compensator.TransferFunction}" : "no design yet");
             digest.Show([new DigestItem(why, false)], s.Path is null && s.Case.Plant is null ? "Type the plant G(s) to begin (e.g. 10/(s(s+2)))." : "REFUSED at this target; the last good design is kept:");
         }
 
-        hints.Text = plane.HasFocus
+        SetText(hints, plane.HasFocus
             ? " ←↑↓→ move  f fine  m ζ/ωn  c corner  t type  u undo  k kind  Tab fields  F1"
-            : " Tab field  F2 s-plane  ^Z undo  ^S save  F7 report  F8 hand-off  ^Q quit  F1";
-        SetNeedsDraw();
+            : " Tab field  F2 s-plane  ^Z undo  ^S save  F7 report  F8 hand-off  ^Q quit  F1");
     }
 
     private static CaseField FieldOf(string name) => name == "feedback" ? CaseField.Feedback : CaseField.Plant;
@@ -920,7 +947,7 @@ internal sealed class EditorWindow : Runnable
                 {
                     var why = message.Text;
                     AskText(p.Question, text, accept);
-                    hints.Text = " " + why;
+                    SetText(hints, " " + why);
                 }
 
                 return true;

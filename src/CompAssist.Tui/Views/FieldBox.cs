@@ -13,6 +13,7 @@ internal sealed class FieldBox
         Row = row;
         LabelX = labelX;
         BoxX = labelX + labelWidth;
+        BaseLabel = label;
         Label = new Label { Text = label, X = labelX, Width = labelWidth };
         Box = new TextField { X = BoxX, Width = boxWidth };
     }
@@ -23,6 +24,9 @@ internal sealed class FieldBox
     public int Row { get; }
 
     public int LabelX { get; }
+
+    /// <summary>The label without the error marker.</summary>
+    public string BaseLabel { get; }
 
     public int BoxX { get; }
 
