@@ -14,6 +14,21 @@ if (args.Length == 2 && args[0] == "--write-cases")
     return 0;
 }
 
+if (args.Contains("--locus-probe"))
+{
+    var c = BenchmarkLoop.OfOrder(20);
+    var design = CompAssist.Core.Synthesis.LeadDesigner.Design(c.Loop, c.Target, c.Options).Value!;
+    var open = c.Loop.RationalOpenLoop(design.Compensator.TransferFunction);
+    double Time(Func<object> f) { for (var i = 0; i < 300; i++) f(); var t = System.Diagnostics.Stopwatch.StartNew(); for (var i = 0; i < 300; i++) f(); return t.Elapsed.TotalMilliseconds / 300; }
+    var r = CompAssist.Core.Locus.LocusEngine.Compute(c.Loop, design.Compensator.TransferFunction);
+    Console.WriteLine($"steps {r.Steps} reseeds {r.Reseeds} points {r.Branches.Sum(b => b.Length)}");
+    Console.WriteLine($"whole {Time(() => CompAssist.Core.Locus.LocusEngine.Compute(c.Loop, design.Compensator.TransferFunction)):F3} ms");
+    Console.WriteLine($"break points {Time(() => CompAssist.Core.Locus.LocusFeatures.BreakPoints(open.Poles, open.Zeros, open.Gain)):F3} ms");
+    Console.WriteLine($"axis crossings {Time(() => CompAssist.Core.Locus.LocusFeatures.AxisCrossings(open.Poles, open.Zeros, open.Gain)):F3} ms");
+    Console.WriteLine($"one eigen reseed (roots) {Time(() => CompAssist.Core.Numerics.RootFinder.Find(c.Loop.Characteristic(design.Compensator.TransferFunction))):F3} ms");
+    return 0;
+}
+
 if (args.Contains("--quick"))
 {
     var orders = args.Where(a => int.TryParse(a, out _)).Select(int.Parse).DefaultIfEmpty(4).ToList();

@@ -16,6 +16,12 @@ public static class LocusEngine
 {
     private const int MaxSteps = 20000;
 
+    // Continuation jumps across a break point once two roots are within this fraction of the break point's size
+    // of it, or the gain is within this much (in ln K) of its gain; the jump lands this far (in ln K) past it.
+    private const double BreakRadius = 0.05;
+    private const double BreakGainApproach = 0.003;
+    private const double BreakJump = 0.01;
+
     /// <summary>The locus of the loop with an optional compensator (default 1), sign folded in.</summary>
     public static LocusResult Compute(Loop loop, TransferFunction? compensator = null)
     {
@@ -83,10 +89,35 @@ public static class LocusEngine
             var slope = Tangents(roots, poles, zeros, g, k);
             var nextSlope = new Complex[n];
             var allowance = new double[n];
+            // The exact break points ahead, by gain: continuation crawls where branches meet, so once the meeting
+            // roots are close to a break point (or its gain is all but reached) it jumps across with one eigenvalue
+            // solve instead, and the exact break point goes on the branches that pass through it.
+            var ahead = breakPoints.Where(b => double.IsFinite(b.Gain) && b.Gain > k).OrderBy(b => b.Gain).ToArray();
+            var nextBreak = 0;
             while (t < tEnd && steps < MaxSteps && !Finished(roots, zeros, scale))
             {
                 steps++;
                 var kNow = Math.Exp(t);
+                while (nextBreak < ahead.Length && ahead[nextBreak].Gain <= kNow)
+                {
+                    nextBreak++;
+                }
+
+                if (nextBreak < ahead.Length && CloseToBreak(roots, ahead[nextBreak], t, scale))
+                {
+                    var kJump = ahead[nextBreak].Gain * Math.Exp(BreakJump);
+                    var before = roots;
+                    roots = Reseed(poles, zeros, g, kJump, roots);
+                    slope = Tangents(roots, poles, zeros, g, kJump);
+                    reseeds++;
+                    InsertBreakPoints(branches, breakPoints, before, roots, kNow, kJump, scale);
+                    Append(branches, kJump, roots);
+                    t = Math.Log(kJump);
+                    dt = BreakJump;
+                    nextBreak++;
+                    continue;
+                }
+
                 Allowances(roots, scale, allowance);
                 dt = Math.Min(dt, PredictedStep(roots, slope, allowance, kNow));
                 var kNext = Math.Exp(t + dt);
@@ -135,12 +166,36 @@ public static class LocusEngine
             var radius = 0.05 * Math.Max(b.Point.Magnitude, 0.05 * scale);
             for (var i = 0; i < before.Length; i++)
             {
-                if (Complex.Abs(before[i] - b.Point) <= radius && Complex.Abs(after[i] - b.Point) <= radius)
+                // A branch passes through the break point when both ends are close to it, or when going by way of
+                // it is not much longer than the straight jump (at most the right-angle turn a break point makes).
+                var viaBreak = Complex.Abs(before[i] - b.Point) + Complex.Abs(after[i] - b.Point);
+                var near = Complex.Abs(before[i] - b.Point) <= radius && Complex.Abs(after[i] - b.Point) <= radius;
+                if (near || viaBreak <= (1.6 * Complex.Abs(after[i] - before[i])) + radius)
                 {
                     branches[i].Add(new LocusPoint(b.Gain, b.Point));
                 }
             }
         }
+    }
+
+    private static bool CloseToBreak(Complex[] roots, BreakPoint b, double t, double scale)
+    {
+        if (Math.Log(b.Gain) - t < BreakGainApproach)
+        {
+            return true;
+        }
+
+        var radius = BreakRadius * Math.Max(b.Point.Magnitude, 0.05 * scale);
+        var near = 0;
+        foreach (var r in roots)
+        {
+            if (Complex.Abs(r - b.Point) <= radius && ++near == 2)
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private static void Append(List<LocusPoint>[] branches, double k, Complex[] roots)

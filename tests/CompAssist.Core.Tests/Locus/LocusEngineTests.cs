@@ -141,6 +141,43 @@ public class LocusEngineTests
     }
 
     [Fact]
+    public void Compute_OgataThreePoles_TwoBranchesPassThroughTheExactBreakAway()
+    {
+        // Ogata, 5th ed., Example 6-1 (from memory): break-away at −0.4226 with K = 0.3849; exact −1 + 1/√3.
+        var locus = LocusEngine.Compute(LoopOf("1/(s(s+1)(s+2))"));
+        var s0 = -1 + (1 / Math.Sqrt(3));
+        var k0 = Math.Abs(s0 * (s0 + 1) * (s0 + 2));
+        var through = locus.Branches.Count(b => b.Any(p => Complex.Abs(p.Root - s0) < 1e-9 && Math.Abs(p.Gain - k0) < 1e-9 * k0));
+        Assert.Equal(2, through);
+    }
+
+    [Theory]
+    [InlineData("1/(s(s+1)(s+2))")]
+    [InlineData("(s+2)/(s^2+2s+3)")]
+    [InlineData("1/(s(s+4)(s^2+4s+20))")]
+    [InlineData("(s+0.5)/(s^2(s+4)^2)")]
+    public void Compute_NearTheOrigin_ConsecutivePointsAreCloseEnoughToDraw(string plant)
+    {
+        // The jumps across break points must not leave long straight chords in the picture: within twice the
+        // region's size, consecutive points of a branch are at most a quarter of the region apart.
+        var loop = LoopOf(plant);
+        var locus = LocusEngine.Compute(loop);
+        var open = loop.RationalOpenLoop(TransferFunction.Unity);
+        var scale = open.Poles.Concat(open.Zeros).Max(z => z.Magnitude);
+        foreach (var branch in locus.Branches)
+        {
+            for (var i = 1; i < branch.Length; i++)
+            {
+                if (branch[i].Root.Magnitude < 2 * scale && branch[i - 1].Root.Magnitude < 2 * scale)
+                {
+                    var gap = Complex.Abs(branch[i].Root - branch[i - 1].Root);
+                    Assert.True(gap <= 0.25 * scale, $"gap {gap} between K={branch[i - 1].Gain} and K={branch[i].Gain}");
+                }
+            }
+        }
+    }
+
+    [Fact]
     public void Compute_RepeatedPolesAndIntegrators_Works()
     {
         var loop = LoopOf("(s+0.5)/(s^2(s+4)^2)");
