@@ -535,7 +535,14 @@ internal sealed class EditorWindow : Runnable
         {
             var why = s.Latest.FieldError is { } fe ? $"{FieldNames.Of(FieldOf(fe.Field))}: {fe.Error.Message}" : s.Latest.Problem?.ToString() ?? "no design";
             SetText(designLine, s.LastGood is { } good ? $"last good C(s) = {good.Design.Compensator.TransferFunction}" : "no design yet");
-            digest.Show([new DigestItem(why, false)], s.Path is null && s.Case.Plant is null ? "Type the plant G(s) to begin (e.g. 10/(s(s+2)))." : "REFUSED at this target; the last good design is kept:");
+            if (s.Case.Plant is null)
+            {
+                digest.Show([new DigestItem("then the requirements (OS % and ts s, or ζ and ωn); the design follows as you type", null)], "Type the plant G(s) to begin, e.g. 10/(s(s+2)).");
+            }
+            else
+            {
+                digest.Show([new DigestItem(why, false)], s.LastGood is null ? "No design yet:" : "REFUSED at this target; the last good design is kept:");
+            }
         }
 
         SetText(hints, plane.HasFocus
