@@ -51,6 +51,7 @@ public static class LocusEngine
         var breakPoints = LocusFeatures.BreakPoints(poles, zeros, g);
         var steps = 0;
         var reseeds = 0;
+        var crossings = 0;
         if (n > 0)
         {
             // First point off the poles: an eigenvalue solve at a small gain, assigned to the poles.
@@ -107,9 +108,21 @@ public static class LocusEngine
                 {
                     var kJump = ahead[nextBreak].Gain * Math.Exp(BreakJump);
                     var before = roots;
-                    roots = Reseed(poles, zeros, g, kJump, roots);
-                    slope = Tangents(roots, poles, zeros, g, kJump);
-                    reseeds++;
+                    if (TrySplitAtBreak(roots, slope, ahead[nextBreak], kNow, kJump, next, nextSlope, poles, zeros, g, scale))
+                    {
+                        roots = next;
+                        slope = nextSlope;
+                        next = new Complex[n];
+                        nextSlope = new Complex[n];
+                        crossings++;
+                    }
+                    else
+                    {
+                        roots = Reseed(poles, zeros, g, kJump, roots);
+                        slope = Tangents(roots, poles, zeros, g, kJump);
+                        reseeds++;
+                    }
+
                     InsertBreakPoints(branches, breakPoints, before, roots, kNow, kJump, scale);
                     Append(branches, kJump, roots);
                     t = Math.Log(kJump);
@@ -152,7 +165,7 @@ public static class LocusEngine
 
         var ends = roots.Select(r => NearestZero(r, zeros, scale)).ToImmutableArray();
         return LocusFeatures.Complete(
-            branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, breakPoints, approximate, steps, reseeds);
+            branches.Select(b => b.ToImmutableArray()).ToImmutableArray(), ends, poles, zeros, g, breakPoints, approximate, steps, reseeds, crossings);
     }
 
     /// <summary>
@@ -274,16 +287,117 @@ public static class LocusEngine
     /// </summary>
     private static bool TryStep(Complex[] roots, Complex[] slope, double[] allowance, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k, double kNext, double scale)
     {
-        var n = roots.Length;
         var growth = kNext - k;
+        for (var i = 0; i < roots.Length; i++)
+        {
+            next[i] = roots[i] + (growth * slope[i]);
+        }
+
+        if (!Correct(roots, next, nextSlope, poles, zeros, g, kNext, scale))
+        {
+            return false;
+        }
+
+        for (var i = 0; i < roots.Length; i++)
+        {
+            if (Complex.Abs(next[i] - roots[i]) > allowance[i])
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    /// <summary>
+    /// Crosses a break point without an eigenvalue solve: the two roots that meet there leave it as
+    /// s = b ± √(−2·g·N(b)·(K − K_b) / F″(b)) (the local expansion of D + K·g·N, with F = F′ = 0 at the break point),
+    /// the others follow their tangents; then every root is corrected by Newton at the new gain. False when the
+    /// break point is not a simple meeting of two roots or the correction fails (the caller then re-seeds).
+    /// </summary>
+    private static bool TrySplitAtBreak(Complex[] roots, Complex[] slope, BreakPoint b, double k, double kJump, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double scale)
+    {
+        var n = roots.Length;
+        int first = -1, second = -1;
         for (var i = 0; i < n; i++)
         {
-            var r = roots[i];
-            var x = r + (growth * slope[i]);
+            var d = Complex.Abs(roots[i] - b.Point);
+            if (first < 0 || d < Complex.Abs(roots[first] - b.Point))
+            {
+                second = first;
+                first = i;
+            }
+            else if (second < 0 || d < Complex.Abs(roots[second] - b.Point))
+            {
+                second = i;
+            }
+        }
+
+        if (second < 0)
+        {
+            return false;
+        }
+
+        var (_, _, dd2, nv, _, nd2) = SecondDerivatives(poles, zeros, b.Point);
+        var fss = dd2 + (b.Gain * g * nd2);
+        var size = Math.Max(b.Point.Magnitude, 0.05 * scale);
+        if (!(fss.Magnitude > 0) || !double.IsFinite(fss.Magnitude))
+        {
+            return false;
+        }
+
+        var delta = Complex.Sqrt(-2.0 * g * nv * (kJump - b.Gain) / fss);
+        if (!double.IsFinite(delta.Real) || !double.IsFinite(delta.Imaginary) || delta.Magnitude > 0.2 * size)
+        {
+            return false;
+        }
+
+        var growth = kJump - k;
+        for (var i = 0; i < n; i++)
+        {
+            next[i] = roots[i] + (growth * slope[i]);
+        }
+
+        // Keep each of the two on the side it came from (either assignment draws correctly; this one avoids a kink).
+        var a = b.Point + delta;
+        var c = b.Point - delta;
+        var keep = Complex.Abs(roots[first] - a) + Complex.Abs(roots[second] - c) <= Complex.Abs(roots[first] - c) + Complex.Abs(roots[second] - a);
+        next[first] = keep ? a : c;
+        next[second] = keep ? c : a;
+        if (!Correct(roots, next, nextSlope, poles, zeros, g, kJump, scale))
+        {
+            return false;
+        }
+
+        // The pair must have stayed near the break point, and every other root near its prediction.
+        for (var i = 0; i < n; i++)
+        {
+            var moved = i == first || i == second
+                ? Complex.Abs(next[i] - b.Point) > 0.5 * size
+                : Complex.Abs(next[i] - (roots[i] + (growth * slope[i]))) > 0.1 * Math.Max(Complex.Abs(roots[i]), 0.05 * scale);
+            if (moved)
+            {
+                return false;
+            }
+        }
+
+        return true;
+    }
+
+    /// <summary>
+    /// Newton correction of every guess at gain <paramref name="k"/> (in product form), with the tangents at the
+    /// corrected roots; false when a root does not converge or two roots land on the same one.
+    /// </summary>
+    private static bool Correct(Complex[] previous, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double k, double scale)
+    {
+        var n = next.Length;
+        for (var i = 0; i < n; i++)
+        {
+            var x = next[i];
             var converged = false;
             for (var it = 0; it < 6; it++)
             {
-                var (f, d, nValue) = Evaluate(poles, zeros, g, kNext, x);
+                var (f, d, nValue) = Evaluate(poles, zeros, g, k, x);
                 if (d == Complex.Zero)
                 {
                     break;
@@ -291,7 +405,7 @@ public static class LocusEngine
 
                 var step = f / d;
                 x -= step;
-                nextSlope[i] = Slope(d, nValue, g, kNext);
+                nextSlope[i] = Slope(d, nValue, g, k);
                 if (Complex.Abs(step) <= 1e-10 * Math.Max(Complex.Abs(x), 1e-3 * scale))
                 {
                     converged = true;
@@ -304,14 +418,9 @@ public static class LocusEngine
                 return false;
             }
 
-            if (r.Imaginary == 0 && Math.Abs(x.Imaginary) <= 1e-12 * Math.Max(Complex.Abs(x), scale))
+            if (previous[i].Imaginary == 0 && Math.Abs(x.Imaginary) <= 1e-12 * Math.Max(Complex.Abs(x), scale))
             {
                 x = new Complex(x.Real, 0);
-            }
-
-            if (Complex.Abs(x - r) > allowance[i])
-            {
-                return false;
             }
 
             next[i] = x;
@@ -334,6 +443,28 @@ public static class LocusEngine
         }
 
         return true;
+    }
+
+    /// <summary>D, D′, D″ and N, N′, N″ at s, in product form.</summary>
+    private static (Complex D, Complex D1, Complex D2, Complex N, Complex N1, Complex N2) SecondDerivatives(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, Complex s)
+    {
+        static (Complex, Complex, Complex) Of(ImmutableArray<Complex> roots, Complex s)
+        {
+            Complex v = 1, d1 = 0, d2 = 0;
+            foreach (var r in roots)
+            {
+                var f = s - r;
+                d2 = (d2 * f) + (2 * d1);
+                d1 = (d1 * f) + v;
+                v *= f;
+            }
+
+            return (v, d1, d2);
+        }
+
+        var (d, dd1, dd2) = Of(poles, s);
+        var (nv, nd1, nd2) = Of(zeros, s);
+        return (d, dd1, dd2, nv, nd1, nd2);
     }
 
     /// <summary>

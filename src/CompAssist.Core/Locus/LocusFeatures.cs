@@ -21,7 +21,8 @@ public static class LocusFeatures
         ImmutableArray<BreakPoint> breakPoints,
         bool approximate,
         int steps,
-        int reseeds)
+        int reseeds,
+        int expansionCrossings)
     {
         var zeroDegree = g < 0;
         var excess = poles.Length - zeros.Length;
@@ -45,6 +46,7 @@ public static class LocusFeatures
             ZeroDegreeLocus = zeroDegree,
             Steps = steps,
             Reseeds = reseeds,
+            ExpansionCrossings = expansionCrossings,
         };
     }
 

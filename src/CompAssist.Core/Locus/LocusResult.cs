@@ -48,6 +48,9 @@ public sealed record LocusResult
     /// <summary>Continuation steps taken and eigenvalue re-seeds used (diagnostics).</summary>
     public required int Steps { get; init; }
 
-    /// <summary>Number of eigenvalue re-seeds (near break points).</summary>
+    /// <summary>Number of eigenvalue solves: at the start, and at break points the local expansion could not cross.</summary>
     public required int Reseeds { get; init; }
+
+    /// <summary>Break points crossed by the local expansion, without an eigenvalue solve (diagnostics).</summary>
+    public required int ExpansionCrossings { get; init; }
 }

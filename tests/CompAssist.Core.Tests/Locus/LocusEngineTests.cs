@@ -154,6 +154,21 @@ public class LocusEngineTests
     [Theory]
     [InlineData("1/(s(s+1)(s+2))")]
     [InlineData("(s+2)/(s^2+2s+3)")]
+    [InlineData("(s+2)(s+8)/((s+0.5)(s+1.2)(s+3)(s+7)(s+30)(s^2+2s+10))")]
+    public void Compute_SimpleBreakPoints_AreCrossedWithoutAnEigenvalueSolve(string plant)
+    {
+        // Two roots meeting at a break point leave it by the local expansion; only the start needs an
+        // eigenvalue solve. Every point must still be on the locus.
+        var loop = LoopOf(plant);
+        var locus = LocusEngine.Compute(loop);
+        Assert.NotEmpty(locus.BreakPoints);
+        Assert.Equal(locus.BreakPoints.Length, locus.ExpansionCrossings);
+        AssertOnLocus(loop, locus);
+    }
+
+    [Theory]
+    [InlineData("1/(s(s+1)(s+2))")]
+    [InlineData("(s+2)/(s^2+2s+3)")]
     [InlineData("1/(s(s+4)(s^2+4s+20))")]
     [InlineData("(s+0.5)/(s^2(s+4)^2)")]
     public void Compute_NearTheOrigin_ConsecutivePointsAreCloseEnoughToDraw(string plant)
