@@ -1,6 +1,7 @@
 using CompAssist.Core.Cases;
 using CompAssist.Core.Editing;
 using CompAssist.Core.Pictures;
+using System.Runtime.InteropServices;
 using Terminal.Gui.App;
 
 namespace CompAssist.Tui;
@@ -52,6 +53,10 @@ public static class EditorLauncher
                 window.OfferAutosave(autosave);
             }
 
+            // A dropped SSH session hangs up the editor: write the autosave at once (the timer may be up to a
+            // second behind), then let the signal end the process as usual.
+            using var hangUp = PosixSignalRegistration.Create(PosixSignal.SIGHUP, _ => window.AutosaveFromSignal());
+            using var terminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, _ => window.AutosaveFromSignal());
             app.Run(window);
             window.AutosaveNow();
             discarded = window.WorkDiscarded;

@@ -194,6 +194,18 @@ internal sealed class EditorWindow : Runnable
         lastAutosavedRevision = Session.Revision;
     }
 
+    /// <summary>
+    /// Writes the autosave from a signal handler's thread: only the file, from the immutable case as it stands
+    /// (no screen update, which belongs to the UI thread).
+    /// </summary>
+    public void AutosaveFromSignal()
+    {
+        if (!WorkDiscarded)
+        {
+            Session.Autosave();
+        }
+    }
+
     /// <summary>Starts the autosave timer (real runs; tests call <see cref="AutosaveNow"/>).</summary>
     public void StartAutosave(IApplication app)
     {
@@ -519,6 +531,9 @@ internal sealed class EditorWindow : Runnable
         var columns = Frame.Width > 0 ? Frame.Width : 80;
         SetText(bar, full.Length <= columns ? full : $" {name}{dirty} │ {kind}{placement} │ {mode} {size} {stepLength} │ F1 keys");
         SetText(compensatorLine, TextPage.Fit($"kind {kind}{(placement.Length > 0 ? "  placement " + PlacementNames.NameOf(s.Case.Lead.Placement) : string.Empty)}", FormWidth));
+
+        var delay = (s.Latest.Report ?? s.LastGood)?.Design.Loop.Delay ?? 0.0;
+        SetText(headings[0].Label, delay > 0 ? TextPage.Fit($"Loop  delay {TransferFunctionFormatter.Number(delay, 4)} s, roots: Padé {s.Case.PadeOrder}", FormWidth) : "Loop");
 
         var target = s.CurrentTarget;
         SetText(planeHeading, target is { } t

@@ -194,6 +194,46 @@ public sealed class EditorWindowTests : IDisposable
     }
 
     [Fact]
+    public void Screen_LoopWithADelay_ShowsTheDelayAndItsPadeOrder()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder, "pump-pressure.toml"));
+        Assert.Contains("Loop  delay 0.05 s, roots: Padé 3", h.Screen());
+    }
+
+    [Fact]
+    public void OpenKey_WithUnsavedWork_AsksThenOpensTheOtherCase()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var other = Path.Combine(folder, "gimbal-tilt.toml");
+        File.Copy(Path.Combine(Repository.Root(), "cases", "gimbal-tilt.toml"), other);
+        h.Press(Key.CursorLeft, Key.O.WithCtrl);
+        Assert.Contains("unsaved changes", h.Window.PromptText);
+        h.Press(Key.D);
+        Assert.StartsWith("open case file", h.Window.PromptText);
+        h.Press(Enumerable.Repeat(Key.Backspace, 200).ToArray());
+        h.Type(other);
+        h.Press(Key.Enter);
+        Assert.Equal(other, h.Session.Path);
+        Assert.False(h.Session.IsDirty);
+        Assert.Contains("gimbal-tilt.toml", h.Screen());
+        Assert.Contains("opened gimbal-tilt.toml", h.Window.Message);
+    }
+
+    [Fact]
+    public void OpenKey_MissingFile_SaysWhyAndKeepsAsking()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.Path;
+        h.Press(Key.O.WithCtrl);
+        h.Press(Enumerable.Repeat(Key.Backspace, 200).ToArray());
+        h.Type(Path.Combine(folder, "nothing-here.toml"));
+        h.Press(Key.Enter);
+        Assert.Equal(before, h.Session.Path);
+        Assert.StartsWith("open case file", h.Window.PromptText);
+        Assert.Contains("Cannot open", h.Screen());
+    }
+
+    [Fact]
     public void CompensatorKey_F3_SwitchesToLagAndShowsIt()
     {
         using var h = new EditorHarness(EditorHarness.Demo(folder));

@@ -76,5 +76,24 @@ tmux send-keys -t "$session" C-q
 for _ in $(seq 1 100); do [ -f "$work/exit" ] && break; sleep 0.1; done
 [ "$(cat "$work/exit" 2>/dev/null)" = "EXIT=0" ] || { echo "FAIL: no clean exit (NO_COLOR run)" >&2; failures=$((failures + 1)); }
 
+tmux kill-session -t "$session" 2>/dev/null || true
+rm -f "$work/exit"
+
+# 3. A dropped session (tmux kills the pane: SIGHUP) right after a key press keeps the work in the autosave.
+start "" "$work/belt-axis.toml"
+wait_for "C(s) = " >/dev/null
+tmux send-keys -t "$session" Up
+wait_for "move target to" >/dev/null
+moved=$(screen | grep -o 's\* [-0-9.]* ± [0-9.]*j' | head -1)
+tmux kill-session -t "$session"
+sleep 0.5
+if [ -f "$work/belt-axis.autosave.toml" ]; then
+  echo "ok: the hung-up editor left belt-axis.autosave.toml ($moved)"
+  im=$(echo "$moved" | sed -E 's/.*± ([0-9.]*)j/\1/')
+  if grep -qE "^target = \\[.*, ${im}(\\.0+)?\\]" "$work/belt-axis.autosave.toml"; then echo "ok: the autosave holds the moved target"; else echo "FAIL: autosave without the moved target" >&2; cat "$work/belt-axis.autosave.toml" >&2; failures=$((failures + 1)); fi
+else
+  echo "FAIL: no autosave after the hang-up" >&2; failures=$((failures + 1))
+fi
+
 if [ "$failures" -ne 0 ]; then echo "editor check: $failures failure(s)" >&2; exit 1; fi
 echo "editor check: all passed"
