@@ -126,6 +126,9 @@ internal sealed class EditorWindow : Runnable
     /// <summary>The page open over the screen ("help", "report", "handoff"), or empty.</summary>
     public string OpenPage => page.Visible ? page.Kind : string.Empty;
 
+    /// <summary>The text of the open page (unwrapped), or empty.</summary>
+    public string PageText => page.Visible ? page.Content : string.Empty;
+
     /// <summary>The question on the message line, or null.</summary>
     public string? PromptText => prompt?.Question;
 
@@ -310,6 +313,8 @@ internal sealed class EditorWindow : Runnable
         K(KeyScope.Handoff, "m", "next discretization method", () => CycleHandoff(method: 1), Key.M);
         K(KeyScope.Handoff, "n", "next number format (double, float, fixed16, fixed24, fixed32)", () => CycleHandoff(format: 1), Key.N);
         K(KeyScope.Handoff, "t", "type the sample time (empty: recommended)", AskSampleTime, Key.T);
+        K(KeyScope.Handoff, "d", "one sample of computation delay in the sampled proof, on / off", () => { handoffOptions = handoffOptions with { ComputationDelay = !handoffOptions.ComputationDelay }; page.Refresh(HandoffText()); }, Key.D);
+        K(KeyScope.Handoff, "a", "anti-windup of the exported PID: clamping, back-calculation, none", CycleAntiWindup, Key.A);
         K(KeyScope.Handoff, "w", "write the package (C, JSON, CSV vectors, report, plots)", AskHandoffFolder, Key.W);
     }
 
@@ -688,7 +693,7 @@ internal sealed class EditorWindow : Runnable
             return;
         }
 
-        page.Open("handoff", "Hand-off to firmware", HandoffText(), "m method · n format · t sample time · w write · Esc closes");
+        page.Open("handoff", "Hand-off to firmware", HandoffText(), "m method · n format · t sample time · d delay · a anti-windup · w write · Esc");
     }
 
     private string HandoffText()
@@ -746,6 +751,13 @@ internal sealed class EditorWindow : Runnable
             handoffOptions = handoffOptions with { Format = HandoffFormats[(i + format + HandoffFormats.Length) % HandoffFormats.Length] };
         }
 
+        page.Refresh(HandoffText());
+    }
+
+    private void CycleAntiWindup()
+    {
+        var all = Enum.GetValues<AntiWindup>();
+        handoffOptions = handoffOptions with { AntiWindup = all[(Array.IndexOf(all, handoffOptions.AntiWindup) + 1) % all.Length] };
         page.Refresh(HandoffText());
     }
 

@@ -423,6 +423,12 @@ public sealed class EditorWindowTests : IDisposable
         Assert.Contains("method         tustin", screen);
         h.Press(Key.M);
         Assert.Contains("method         prewarp", h.Screen());
+        Assert.Contains("delay          none", h.Screen());
+        h.Press(Key.D);
+        Assert.Contains("delay          one sample", h.Screen());
+        Assert.Contains("(ZOH plant, 1 sample of delay)", h.Window.PageText);
+        h.Press(Key.A);
+        Assert.Contains("anti-windup    back-calculation", h.Window.PageText);
         h.Press(Key.W);
         Assert.StartsWith("write the package", h.Window.PromptText);
         h.Press(Key.Enter);

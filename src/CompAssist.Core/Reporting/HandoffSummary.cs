@@ -18,8 +18,10 @@ public static class HandoffSummary
         sb.AppendLine($"sample time    {package.SampleTimeNote}");
         sb.AppendLine($"method         {DiscreteReport.MethodName(options.Method)}");
         sb.AppendLine($"number format  {options.Format}");
+        sb.AppendLine($"delay          {(options.ComputationDelay ? "one sample of computation delay in the sampled proof" : "none assumed (output at the sampling instant)")}");
+        sb.AppendLine($"anti-windup    {AntiWindupName(options.AntiWindup)} (used by the PID export)");
         sb.AppendLine($"sections       {package.Sections.Length} (cascaded, in the order they are applied)");
-        TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples > 0 ? $", {proof.DelaySamples} samples of delay" : string.Empty)})", string.Empty, "               ");
+        TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples switch { 0 => string.Empty, 1 => ", 1 sample of delay", var d => $", {d} samples of delay" })})", string.Empty, "               ");
         var warnings = package.Quantization.Warnings.Concat(proof.Warnings).ToList();
         foreach (var w in warnings)
         {
@@ -31,6 +33,13 @@ public static class HandoffSummary
         sb.Append(DiscreteReport.RenderText(continuous, package.Discretization));
         return sb.ToString();
     }
+
+    private static string AntiWindupName(AntiWindup scheme) => scheme switch
+    {
+        AntiWindup.Clamping => "clamping",
+        AntiWindup.BackCalculation => "back-calculation",
+        _ => "none",
+    };
 
     private static string N(double x, int digits) => TransferFunctionFormatter.Number(x, digits);
 }

@@ -22,6 +22,9 @@ internal sealed class TextPage : View
     /// <summary>First line shown.</summary>
     public int Top { get; private set; }
 
+    /// <summary>The page's text as given (before wrapping).</summary>
+    public string Content => string.Join('\n', source);
+
     /// <summary>What the page is (e.g. "help").</summary>
     public string Kind { get; private set; } = string.Empty;
 
