@@ -13,18 +13,50 @@ public static class AtomicFile
     /// <exception cref="IOException">The file cannot be written; the old file is untouched.</exception>
     public static void Write(string path, string content, Action? beforeRename = null)
     {
-        ArgumentNullException.ThrowIfNull(path);
+        ArgumentException.ThrowIfNullOrWhiteSpace(path);
         ArgumentNullException.ThrowIfNull(content);
-        var temporary = path + ".tmp";
-        using (var stream = new FileStream(temporary, FileMode.Create, FileAccess.Write, FileShare.None))
-        using (var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false)))
-        {
-            writer.Write(content);
-            writer.Flush();
-            stream.Flush(flushToDisk: true);
-        }
 
-        beforeRename?.Invoke();
-        File.Move(temporary, path, overwrite: true);
+        // A name of its own for every write, so that two writers (a timer and a signal handler, say) never share
+        // a temporary file.
+        var temporary = $"{path}.{Environment.ProcessId}-{Interlocked.Increment(ref writes)}.tmp";
+        try
+        {
+            using (var stream = new FileStream(temporary, FileMode.Create, FileAccess.Write, FileShare.None))
+            using (var writer = new StreamWriter(stream, new System.Text.UTF8Encoding(false)))
+            {
+                writer.Write(content);
+                writer.Flush();
+                stream.Flush(flushToDisk: true);
+            }
+
+            beforeRename?.Invoke();
+            File.Move(temporary, path, overwrite: true);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            TryDelete(temporary);
+            throw;
+        }
+    }
+
+    /// <summary>The temporary files this class would leave beside <paramref name="path"/> if interrupted (for tests and clean-up).</summary>
+    public static string[] LeftoversBeside(string path)
+    {
+        var folder = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
+        return Directory.GetFiles(folder, Path.GetFileName(path) + ".*.tmp");
+    }
+
+    private static long writes;
+
+    private static void TryDelete(string file)
+    {
+        try
+        {
+            File.Delete(file);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            // The write already failed; a stray temporary file is the lesser problem.
+        }
     }
 }

@@ -37,13 +37,38 @@ public static class AutosaveFiles
         return casePath is null || !File.Exists(casePath) || File.GetLastWriteTimeUtc(autosave) >= File.GetLastWriteTimeUtc(casePath) ? autosave : null;
     }
 
-    /// <summary>Removes an autosave if it exists.</summary>
-    public static void Delete(string path)
+    /// <summary>Removes an autosave if it exists; false (with the file left) when it cannot be removed.</summary>
+    public static bool Delete(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
-        if (File.Exists(path))
+        try
         {
             File.Delete(path);
+            return true;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return false;
+        }
+    }
+
+    /// <summary>
+    /// Moves an autosave aside as NAME.autosave-YYYYMMDD-HHMMSS.toml so that a new session's autosave cannot
+    /// overwrite it; returns the new path, or null when it cannot be moved.
+    /// </summary>
+    public static string? KeepAside(string path, DateTime now)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        var stem = path.EndsWith(Suffix, StringComparison.Ordinal) ? path[..^Suffix.Length] : path;
+        var aside = stem + ".autosave-" + now.ToString("yyyyMMdd-HHmmss", System.Globalization.CultureInfo.InvariantCulture) + ".toml";
+        try
+        {
+            File.Move(path, aside, overwrite: false);
+            return aside;
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            return null;
         }
     }
 }

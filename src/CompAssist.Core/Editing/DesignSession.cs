@@ -25,7 +25,12 @@ public sealed class DesignSession
 
     private readonly List<Change> undo = [];
     private readonly List<Change> redo = [];
+    private readonly Lock autosaveLock = new();
     private string savedText;
+
+    // True once this session has written its autosave file: only then may it remove that file. An autosave
+    // found at start belongs to an earlier session until the user restores or discards it.
+    private bool ownsAutosave;
 
     /// <summary>
     /// Starts a session on a case; <paramref name="path"/> is where it was read from (null for a new case), and
@@ -207,7 +212,7 @@ public sealed class DesignSession
         undo.RemoveAt(undo.Count - 1);
         redo.Add(new Change(Case, change.What, null));
         Replace(change.Before);
-        Status = $"undid: {change.What}";
+        Status = Latest.IsSuccess ? $"undid: {change.What}" : $"undid: {change.What}; {Status}";
         return true;
     }
 
@@ -224,7 +229,7 @@ public sealed class DesignSession
         redo.RemoveAt(redo.Count - 1);
         undo.Add(new Change(Case, change.What, null));
         Replace(change.Before);
-        Status = $"redid: {change.What}";
+        Status = Latest.IsSuccess ? $"redid: {change.What}" : $"redid: {change.What}; {Status}";
         return true;
     }
 
@@ -249,6 +254,12 @@ public sealed class DesignSession
     public Problem? Save(string? path = null, Action? beforeRename = null)
     {
         var target = path ?? Path ?? throw new InvalidOperationException("A new case needs a path to be saved to.");
+        if (string.IsNullOrWhiteSpace(target) || target.IndexOfAny(System.IO.Path.GetInvalidPathChars()) >= 0 || Directory.Exists(target))
+        {
+            Status = "not saved: no file name";
+            return new Problem($"'{target}' is not a file name to save to", "Type a file name such as case.toml (a folder before it must exist).");
+        }
+
         var text = CaseFileWriter.Write(Case);
         try
         {
@@ -260,35 +271,74 @@ public sealed class DesignSession
             return new Problem($"Cannot write {target}: {e.Message}", "Check the folder exists and is writable, or save under another name.");
         }
 
-        var previousAutosave = AutosavePath;
-        Path = System.IO.Path.GetFullPath(target);
-        savedText = text;
+        lock (autosaveLock)
+        {
+            var previousAutosave = AutosavePath;
+            Path = System.IO.Path.GetFullPath(target);
+            savedText = text;
+            if (ownsAutosave)
+            {
+                // The saved file now holds this work: its autosave is no longer needed.
+                AutosaveFiles.Delete(previousAutosave);
+                ownsAutosave = false;
+            }
+        }
+
         Status = $"saved {System.IO.Path.GetFileName(target)}";
-        AutosaveFiles.Delete(previousAutosave);
-        AutosaveFiles.Delete(AutosavePath);
         return null;
     }
 
-    /// <summary>Writes the autosave (atomically) when there is unsaved work, removes it when there is none. Returns a problem on an I/O failure.</summary>
+    /// <summary>
+    /// Writes the autosave (atomically) when there is unsaved work, and removes an autosave this session wrote
+    /// when there is none any more; never touches an autosave it did not write. Safe to call from a signal
+    /// handler's thread. Returns a problem on an I/O failure.
+    /// </summary>
     public Problem? Autosave()
     {
-        var file = AutosavePath;
-        try
+        lock (autosaveLock)
         {
-            if (IsDirty)
+            var file = AutosavePath;
+            try
             {
-                AtomicFile.Write(file, CaseFileWriter.Write(Case));
-            }
-            else
-            {
-                AutosaveFiles.Delete(file);
-            }
+                if (IsDirty)
+                {
+                    AtomicFile.Write(file, CaseFileWriter.Write(Case));
+                    ownsAutosave = true;
+                }
+                else if (ownsAutosave)
+                {
+                    AutosaveFiles.Delete(file);
+                    ownsAutosave = false;
+                }
 
-            return null;
+                return null;
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                return new Problem($"Cannot write the autosave {file}: {e.Message}", "Save the case somewhere writable.");
+            }
         }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+    }
+
+    /// <summary>Removes this session's autosave (the user chose to discard the unsaved work).</summary>
+    public void DiscardAutosave()
+    {
+        lock (autosaveLock)
         {
-            return new Problem($"Cannot write the autosave {file}: {e.Message}", "Save the case somewhere writable.");
+            if (ownsAutosave)
+            {
+                AutosaveFiles.Delete(AutosavePath);
+                ownsAutosave = false;
+            }
+        }
+    }
+
+    /// <summary>Takes over an autosave found at start (restored or discarded by the user): it is this session's from now on.</summary>
+    public void AdoptAutosave()
+    {
+        lock (autosaveLock)
+        {
+            ownsAutosave = true;
         }
     }
 
@@ -303,7 +353,8 @@ public sealed class DesignSession
     {
         if (CaseFileWriter.Write(next) == CaseFileWriter.Write(Case))
         {
-            return true;
+            Status = "no change";
+            return Latest.IsSuccess;
         }
 
         if (coalesceKey is not null && undo.Count > 0 && undo[^1].CoalesceKey == coalesceKey && redo.Count == 0)

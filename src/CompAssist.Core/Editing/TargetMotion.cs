@@ -59,10 +59,11 @@ public static class TargetMotion
                 wn = Math.Max(step, Snap(wn - step, step));
                 break;
             case MoveDirection.Up:
-                zeta = Math.Clamp(Snap(zeta - zetaStep, zetaStep), 0.0, 1.0);
+                // A target already in the right half-plane (ζ < 0) keeps its side.
+                zeta = Math.Clamp(Snap(zeta - zetaStep, zetaStep), zeta < 0 ? -1.0 : 0.0, 1.0);
                 break;
             case MoveDirection.Down:
-                zeta = Math.Clamp(Snap(zeta + zetaStep, zetaStep), 0.0, 1.0);
+                zeta = Math.Clamp(Snap(zeta + zetaStep, zetaStep), zeta < 0 ? -1.0 : 0.0, 1.0);
                 break;
             default:
                 throw new ArgumentOutOfRangeException(nameof(direction), direction, null);

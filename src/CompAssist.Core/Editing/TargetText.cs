@@ -28,7 +28,7 @@ public static partial class TargetText
         {
             var zeta = D(polar.Groups["z"].Value);
             var wn = D(polar.Groups["w"].Value);
-            if (!(zeta >= 0 && zeta <= 1) || !(wn > 0))
+            if (!(zeta >= 0 && zeta <= 1) || !(wn > 0) || !double.IsFinite(wn))
             {
                 return (null, Whole(text, "ζ must be within 0…1 and ωn above 0"));
             }
@@ -39,14 +39,14 @@ public static partial class TargetText
         var pair = PairForm().Match(t);
         if (pair.Success)
         {
-            return (new Complex(D(pair.Groups["re"].Value), Math.Abs(D(pair.Groups["im"].Value))), null);
+            return Finite(text, D(pair.Groups["re"].Value), D(pair.Groups["im"].Value));
         }
 
         var complex = ComplexForm().Match(t);
         if (complex.Success)
         {
             var im = complex.Groups["im"].Success ? D(complex.Groups["im"].Value) : 0.0;
-            return (new Complex(D(complex.Groups["re"].Value), Math.Abs(im)), null);
+            return Finite(text, D(complex.Groups["re"].Value), im);
         }
 
         var offset = text.Length - text.TrimStart().Length;
@@ -60,6 +60,11 @@ public static partial class TargetText
 
         return (null, Whole(text, $"'{t}' is not a target point"));
     }
+
+    private static (Complex? Point, ParseError? Error) Finite(string text, double re, double im) =>
+        double.IsFinite(re) && double.IsFinite(im) && Math.Abs(re) <= 1e12 && Math.Abs(im) <= 1e12
+            ? (new Complex(re, Math.Abs(im)), null)
+            : (null, Whole(text, "The target is too far out (beyond 1e12 rad/s)"));
 
     private static double D(string s) => double.Parse(s, NumberStyles.Float, CultureInfo.InvariantCulture);
 

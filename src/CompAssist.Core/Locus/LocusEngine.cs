@@ -16,10 +16,12 @@ public static class LocusEngine
 {
     private const int MaxSteps = 20000;
 
-    // Continuation jumps across a break point once two roots are within this fraction of the break point's size
-    // of it, or the gain is within this much (in ln K) of its gain; the jump lands this far (in ln K) past it.
+    // Continuation jumps across a break point once the gain is within the window (in ln K) of its gain and two
+    // roots are within this fraction of the break point's size of it, or once the gain is within the approach;
+    // the jump lands this far (in ln K) past it.
     private const double BreakRadius = 0.05;
     private const double BreakGainApproach = 0.003;
+    private const double BreakGainWindow = 0.3;
     private const double BreakJump = 0.01;
 
     /// <summary>The locus of the loop with an optional compensator (default 1), sign folded in.</summary>
@@ -112,7 +114,8 @@ public static class LocusEngine
                 {
                     var kJump = ahead[nextBreak].Gain * Math.Exp(BreakJump);
                     var before = roots;
-                    if (TrySplitAtBreak(roots, slope, ahead[nextBreak], kNow, kJump, next, nextSlope, poles, zeros, g, scale))
+                    Allowances(roots, scale, allowance);
+                    if (TrySplitAtBreak(roots, slope, allowance, ahead[nextBreak], kNow, kJump, next, nextSlope, poles, zeros, g, scale))
                     {
                         roots = next;
                         slope = nextSlope;
@@ -184,26 +187,40 @@ public static class LocusEngine
     {
         foreach (var b in breakPoints.Where(b => b.Gain > kFrom && b.Gain < kTo))
         {
+            // The two branches that meet there: both ends close to it, or going by way of it not much longer than
+            // the straight jump (at most the right-angle turn a break point makes). Never more than two.
             var radius = 0.05 * Math.Max(b.Point.Magnitude, 0.05 * scale);
+            var candidates = new List<(int Branch, double Detour)>();
             for (var i = 0; i < before.Length; i++)
             {
-                // A branch passes through the break point when both ends are close to it, or when going by way of
-                // it is not much longer than the straight jump (at most the right-angle turn a break point makes).
                 var viaBreak = Complex.Abs(before[i] - b.Point) + Complex.Abs(after[i] - b.Point);
                 var near = Complex.Abs(before[i] - b.Point) <= radius && Complex.Abs(after[i] - b.Point) <= radius;
                 if (near || viaBreak <= (1.6 * Complex.Abs(after[i] - before[i])) + radius)
                 {
-                    branches[i].Add(new LocusPoint(b.Gain, b.Point));
+                    candidates.Add((i, viaBreak));
                 }
+            }
+
+            foreach (var (branch, _) in candidates.OrderBy(c => c.Detour).Take(2))
+            {
+                branches[branch].Add(new LocusPoint(b.Gain, b.Point));
             }
         }
     }
 
     private static bool CloseToBreak(Complex[] roots, BreakPoint b, double t, double scale)
     {
-        if (Math.Log(b.Gain) - t < BreakGainApproach)
+        var gap = Math.Log(b.Gain) - t;
+        if (gap < BreakGainApproach)
         {
             return true;
+        }
+
+        // Being near the break point is not enough on its own: roots can pass close to a break point long before
+        // its gain (a small lag circle beside it, say), and the jump would cut that part of the locus out.
+        if (gap > BreakGainWindow)
+        {
+            return false;
         }
 
         var radius = BreakRadius * Math.Max(b.Point.Magnitude, 0.05 * scale);
@@ -337,7 +354,7 @@ public static class LocusEngine
     /// the others follow their tangents; then every root is corrected by Newton at the new gain. False when the
     /// break point is not a simple meeting of two roots or the correction fails (the caller then re-seeds).
     /// </summary>
-    private static bool TrySplitAtBreak(Complex[] roots, Complex[] slope, BreakPoint b, double k, double kJump, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double scale)
+    private static bool TrySplitAtBreak(Complex[] roots, Complex[] slope, double[] allowance, BreakPoint b, double k, double kJump, Complex[] next, Complex[] nextSlope, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g, double scale)
     {
         var n = roots.Length;
         int first = -1, second = -1;
@@ -391,12 +408,14 @@ public static class LocusEngine
             return false;
         }
 
-        // The pair must have stayed near the break point, and every other root near its prediction.
+        // The pair must have stayed near the break point, and every other root near its prediction and within
+        // its step allowance (under 40 % of the distance to its nearest neighbour: no swapping).
         for (var i = 0; i < n; i++)
         {
             var moved = i == first || i == second
                 ? Complex.Abs(next[i] - b.Point) > 0.5 * size
-                : Complex.Abs(next[i] - (roots[i] + (growth * slope[i]))) > 0.1 * Math.Max(Complex.Abs(roots[i]), 0.05 * scale);
+                : Complex.Abs(next[i] - (roots[i] + (growth * slope[i]))) > 0.1 * Math.Max(Complex.Abs(roots[i]), 0.05 * scale)
+                    || Complex.Abs(next[i] - roots[i]) > allowance[i];
             if (moved)
             {
                 return false;

@@ -41,12 +41,15 @@ public class CaseFileWriterTests
             Assert.Equal("old content", File.ReadAllText(path));
             AtomicFile.Write(path, "new content");
             Assert.Equal("new content", File.ReadAllText(path));
-            Assert.False(File.Exists(path + ".tmp"));
+            Assert.Empty(AtomicFile.LeftoversBeside(path));
         }
         finally
         {
             File.Delete(path);
-            File.Delete(path + ".tmp");
+            foreach (var leftover in AtomicFile.LeftoversBeside(path))
+            {
+                File.Delete(leftover);
+            }
         }
     }
 }

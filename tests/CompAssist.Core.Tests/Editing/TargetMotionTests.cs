@@ -83,6 +83,13 @@ public class TargetMotionTests
     }
 
     [Fact]
+    public void Move_UpInDampingFrequencyModeInTheRightHalfPlane_StaysThere()
+    {
+        var moved = TargetMotion.Move(new Complex(1.0, 4.0), MoveDirection.Up, MotionMode.DampingFrequency, StepSize.Coarse, 5.0);
+        Assert.True(moved.Real > 0, $"{moved}");
+    }
+
+    [Fact]
     public void Move_NonFiniteTarget_Throws() =>
         Assert.Throws<ArgumentOutOfRangeException>(() => TargetMotion.Move(new Complex(double.NaN, 1), MoveDirection.Left, MotionMode.RealImaginary, StepSize.Coarse, 5.0));
 

@@ -41,5 +41,7 @@ public class TargetTextTests
     [InlineData("")]
     [InlineData("zeta=1.5 wn=4")]
     [InlineData("-2,,3")]
+    [InlineData("1e999, 1")]
+    [InlineData("zeta=0.5 wn=1e400")]
     public void Parse_Invalid_GivesAnError(string text) => Assert.NotNull(TargetText.Parse(text).Error);
 }

@@ -193,6 +193,30 @@ public class LocusEngineTests
     }
 
     [Fact]
+    public void Compute_LagDipoleBesideAFastPole_DrawsTheSmallCircleInSteps()
+    {
+        // A lag-like dipole near the origin on a plant with a pole a thousand times faster: the small circle
+        // from the break-away near −0.005 to the break-in near −0.195 must be drawn, not replaced by one chord
+        // from one break point to the other.
+        var loop = LoopOf("(s+0.1)/(s(s+0.01)(s+100))");
+        var locus = LocusEngine.Compute(loop);
+        AssertOnLocus(loop, locus);
+        var onCircle = locus.Branches.Max(b => b.Count(p => p.Root.Imaginary > 0.02 && p.Root.Magnitude < 0.3));
+        Assert.True(onCircle >= 6, $"{onCircle} points on the upper half of the circle");
+        foreach (var branch in locus.Branches)
+        {
+            for (var i = 1; i < branch.Length; i++)
+            {
+                if (branch[i].Root.Magnitude < 0.3 && branch[i - 1].Root.Magnitude < 0.3)
+                {
+                    var gap = Complex.Abs(branch[i].Root - branch[i - 1].Root);
+                    Assert.True(gap <= 0.1, $"gap {gap} between K={branch[i - 1].Gain} and K={branch[i].Gain}");
+                }
+            }
+        }
+    }
+
+    [Fact]
     public void Compute_RepeatedPolesAndIntegrators_Works()
     {
         var loop = LoopOf("(s+0.5)/(s^2(s+4)^2)");
