@@ -28,16 +28,15 @@ public static class CliApplication
         root.Subcommands.Add(DiscretizeCommand.Create(stdout, stderr));
         root.Subcommands.Add(HandoffCommand.Create(stdout, stderr));
         root.Subcommands.Add(EditCommand.Create(stderr));
-        if (args.Length == 0)
-        {
-            // `compassist` alone opens the editor on a new case.
-            return EditCommand.Open(null, ascii: false, noColor: false, stderr);
-        }
-
-        var parse = root.Parse(args);
         try
         {
-            return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+            if (args.Length == 0)
+            {
+                // `compassist` alone opens the editor on a new case.
+                return EditCommand.Open(null, ascii: false, noColor: false, stderr);
+            }
+
+            return root.Parse(args).Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
         }
         catch (Exception e) when (e is not OutOfMemoryException)
         {

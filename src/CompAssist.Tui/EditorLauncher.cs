@@ -47,7 +47,7 @@ public static class EditorLauncher
             var window = new EditorWindow(session, palette, new ThreadPoolSweepRunner(app), handoffWriter, asciiPictures ? PictureStyle.Ascii : PictureStyle.Unicode);
             app.Keyboard.KeyDown += window.OnApplicationKey;
             window.Timer = FrameTimer.Attach(app, Environment.GetEnvironmentVariable);
-            window.StartAutosave(app);
+            window.StartAutosave(app, AutosaveInterval(Environment.GetEnvironmentVariable));
             if (AutosaveFiles.NewerThanCase(session.Path, session.WorkingDirectory) is { } autosave)
             {
                 window.OfferAutosave(autosave);
@@ -55,9 +55,15 @@ public static class EditorLauncher
 
             // A dropped SSH session hangs up the editor: write the autosave at once (the timer may be up to a
             // second behind), then let the signal end the process as usual.
+            // A terminate request from another shell quits the editor properly instead, so the terminal is restored.
             using var hangUp = PosixSignalRegistration.Create(PosixSignal.SIGHUP, _ => window.AutosaveFromSignal());
-            using var terminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, _ => window.AutosaveFromSignal());
-            app.Run(window);
+            using var terminate = PosixSignalRegistration.Create(PosixSignal.SIGTERM, context =>
+            {
+                window.AutosaveFromSignal();
+                context.Cancel = true;
+                app.Invoke(() => app.RequestStop());
+            });
+            app.Run(window, window.ReportCrash);
             window.AutosaveNow();
             discarded = window.WorkDiscarded;
             session = window.Session;
@@ -72,6 +78,15 @@ public static class EditorLauncher
 
         return Success;
     }
+
+    /// <summary>
+    /// The autosave interval: one second, or <c>COMPASSIST_AUTOSAVE_SECONDS</c> when set (the terminal check
+    /// lengthens it to show that a hang-up alone saves the work).
+    /// </summary>
+    internal static TimeSpan? AutosaveInterval(Func<string, string?> environment) =>
+        double.TryParse(environment("COMPASSIST_AUTOSAVE_SECONDS"), System.Globalization.NumberStyles.Float, System.Globalization.CultureInfo.InvariantCulture, out var seconds) && seconds > 0 && seconds < 86400
+            ? TimeSpan.FromSeconds(seconds)
+            : null;
 
     /// <summary>Reads the case (or starts a new one); null after printing why it cannot be read.</summary>
     internal static DesignSession? OpenSession(string? casePath, TextWriter stderr)

@@ -55,6 +55,8 @@ internal sealed class EditorWindow : Runnable
     private readonly TextField promptBox = new() { Visible = false, Height = 1 };
     private readonly TextPage page;
     private CancellationTokenSource? sweepCancel;
+    private DesignSession? sweepSession;
+    private int sweepRevision = -1;
     private string? sweepNote;
     private bool refreshingFields;
     private Prompt? prompt;
@@ -198,6 +200,20 @@ internal sealed class EditorWindow : Runnable
     }
 
     /// <summary>
+    /// The last line of defence for an unexpected exception in a key handler: the work is autosaved and the
+    /// error shown on the message line; the editor goes on.
+    /// </summary>
+    public bool ReportCrash(Exception error)
+    {
+        ArgumentNullException.ThrowIfNull(error);
+        Session.Autosave();
+        prompt = null;
+        promptBox.Visible = false;
+        Say($"internal error ({error.GetType().Name}: {error.Message}); your work is autosaved. Please report it.");
+        return true;
+    }
+
+    /// <summary>
     /// Writes the autosave from a signal handler's thread: only the file, from the immutable case as it stands
     /// (no screen update, which belongs to the UI thread).
     /// </summary>
@@ -210,10 +226,10 @@ internal sealed class EditorWindow : Runnable
     }
 
     /// <summary>Starts the autosave timer (real runs; tests call <see cref="AutosaveNow"/>).</summary>
-    public void StartAutosave(IApplication app)
+    public void StartAutosave(IApplication app, TimeSpan? interval = null)
     {
         ArgumentNullException.ThrowIfNull(app);
-        app.AddTimeout(AutosaveInterval, () =>
+        app.AddTimeout(interval ?? AutosaveInterval, () =>
         {
             AutosaveNow();
             return true;
@@ -238,12 +254,13 @@ internal sealed class EditorWindow : Runnable
 
         var when = File.GetLastWriteTime(autosavePath).ToString("yyyy-MM-dd HH:mm", CultureInfo.InvariantCulture);
         Ask(
-            $"Unsaved work from {when} was autosaved. r restore it · d discard it · Esc decide later",
+            $"Autosaved work from {when}: r restore · d discard · Esc keep aside",
             new Dictionary<Rune, Action>
             {
                 [new Rune('r')] = () =>
                 {
                     Session.ReplaceCase(restored, "restore the autosave");
+                    Session.AdoptAutosave();
                     RefreshAll(reframe: true, refreshFields: true);
                     Say("Restored the autosave; save with Ctrl+S to keep it.");
                 },
@@ -252,6 +269,12 @@ internal sealed class EditorWindow : Runnable
                     AutosaveFiles.Delete(autosavePath);
                     Say("Autosave discarded.");
                 },
+            },
+            onCancel: () =>
+            {
+                // Nothing is lost: the old work moves aside, so this session's own autosave cannot overwrite it.
+                var aside = AutosaveFiles.KeepAside(autosavePath, DateTime.Now);
+                Say(aside is null ? $"The autosave could not be moved aside; it stays at {autosavePath}." : $"The autosave is kept as {Path.GetFileName(aside)} (a case file: open it with Ctrl+O).");
             });
     }
 
@@ -514,6 +537,7 @@ internal sealed class EditorWindow : Runnable
         }
         else
         {
+            plane.Show(new SPlaneScene { Target = Session.CurrentTarget }, Session.CurrentTarget is { } only ? [only] : [], reframe);
             step.Show(null, 0);
         }
 
@@ -576,7 +600,9 @@ internal sealed class EditorWindow : Runnable
     {
         if (Session.PendingSweep is not { } request || sweeps is null)
         {
-            if (Session.Robustness is not null || Session.Case.Variations.IsEmpty)
+            // Nothing to sweep for this design (refused, no variations, or done): stop a sweep still running.
+            CancelSweep();
+            if (Session.Robustness is not null || Session.Case.Variations.IsEmpty || !Session.Latest.IsSuccess)
             {
                 sweepNote = null;
             }
@@ -584,33 +610,60 @@ internal sealed class EditorWindow : Runnable
             return;
         }
 
-        sweepCancel?.Cancel();
-        sweepCancel?.Dispose();
+        if (ReferenceEquals(sweepSession, Session) && sweepRevision == request.Revision && sweepCancel is not null)
+        {
+            return; // already running for this very design
+        }
+
+        CancelSweep();
         sweepCancel = new CancellationTokenSource();
+        sweepSession = Session;
+        sweepRevision = request.Revision;
         var token = sweepCancel.Token;
+        var owner = Session;
         sweepNote = $"robustness 0/{request.Corners}…";
         sweeps.Start(
             request,
             done =>
             {
-                sweepNote = $"robustness {done}/{request.Corners}…";
-                RefreshChrome();
+                if (ReferenceEquals(owner, Session) && !token.IsCancellationRequested)
+                {
+                    sweepNote = $"robustness {done}/{request.Corners}…";
+                    RefreshChrome();
+                }
             },
             result =>
             {
-                if (Session.AcceptSweep(request.Revision, result))
+                if (ReferenceEquals(owner, Session) && !token.IsCancellationRequested && Session.AcceptSweep(request.Revision, result))
                 {
                     sweepNote = result.Problem is { } p ? $"robustness: {p.Message}" : null;
+                    CancelSweep();
                     RefreshChrome();
                 }
             },
             token);
     }
 
+    private void CancelSweep()
+    {
+        sweepCancel?.Cancel();
+        sweepCancel?.Dispose();
+        sweepCancel = null;
+        sweepSession = null;
+        sweepRevision = -1;
+    }
+
     private void Say(string text)
     {
+        if (prompt is not null)
+        {
+            // The question stays on the message line; news goes beneath it.
+            hints.Text = " " + text;
+            return;
+        }
+
         message.Text = text;
-        message.Visible = prompt is null;
+        message.Visible = true;
         SetNeedsDraw();
     }
 
@@ -786,6 +839,12 @@ internal sealed class EditorWindow : Runnable
         var baseDir = Session.Path is null ? Session.WorkingDirectory : Path.GetDirectoryName(Session.Path)!;
         AskText("write the package into folder: ", Path.Combine(baseDir, HandoffName() + "-handoff"), text =>
         {
+            if (text.Trim().Length == 0)
+            {
+                Say("Type the folder to write the package into.");
+                return false;
+            }
+
             if (Session.Latest.Report is not { } report || handoffWriter is null)
             {
                 Say("Nothing to write.");
@@ -825,9 +884,15 @@ internal sealed class EditorWindow : Runnable
 
     private void AskOpen()
     {
-        void OpenPrompt() => AskText("open case file: ", Session.Path ?? string.Empty, text =>
+        void OpenPrompt(bool discard) => AskText("open case file: ", Session.Path ?? string.Empty, text =>
         {
             var path = text.Trim();
+            if (path.Length == 0 || !File.Exists(path))
+            {
+                Say(path.Length == 0 ? "Type the path of a case file (TOML)." : $"Cannot open {path}: there is no such file.");
+                return false;
+            }
+
             var (c, error) = CaseFileReader.ReadFile(path);
             if (c is null)
             {
@@ -835,9 +900,12 @@ internal sealed class EditorWindow : Runnable
                 return false;
             }
 
-            Session = new DesignSession(c, path, Session.WorkingDirectory);
-            lastAutosavedRevision = -1;
-            RefreshAll(reframe: true, refreshFields: true);
+            if (discard)
+            {
+                Session.DiscardAutosave();
+            }
+
+            OpenSession(new DesignSession(c, path, Session.WorkingDirectory));
             Say($"opened {Path.GetFileName(path)}");
             if (AutosaveFiles.NewerThanCase(Session.Path, Session.WorkingDirectory) is { } autosave)
             {
@@ -853,21 +921,30 @@ internal sealed class EditorWindow : Runnable
             {
                 [new Rune('s')] = () =>
                 {
-                    if (Save(then: OpenPrompt))
+                    if (Save(then: () => OpenPrompt(discard: false)))
                     {
-                        OpenPrompt();
+                        OpenPrompt(discard: false);
                     }
                 },
-                [new Rune('d')] = () =>
-                {
-                    AutosaveFiles.Delete(Session.AutosavePath);
-                    OpenPrompt();
-                },
+                [new Rune('d')] = () => OpenPrompt(discard: true),
             });
             return;
         }
 
-        OpenPrompt();
+        OpenPrompt(discard: false);
+    }
+
+    /// <summary>Replaces the session (another case was opened): everything shown and chosen starts afresh.</summary>
+    private void OpenSession(DesignSession next)
+    {
+        CancelSweep();
+        sweepNote = null;
+        Session = next;
+        lastAutosavedRevision = -1;
+        handoffOptions = new HandoffOptions();
+        plane.Show(new SPlaneScene(), [], reframe: true);
+        step.Show(null, 0);
+        RefreshAll(reframe: true, refreshFields: true);
     }
 
     /// <summary>Saves; a new case asks for a path first (and then runs <paramref name="then"/>). True when saved now.</summary>
@@ -877,15 +954,23 @@ internal sealed class EditorWindow : Runnable
         {
             AskText("save as: ", Path.Combine(Session.WorkingDirectory, "case.toml"), text =>
             {
-                var problem = Session.Save(text.Trim());
-                RefreshChrome();
-                Say(problem?.ToString() ?? Session.Status);
-                if (problem is null)
+                var path = text.Trim();
+                if (path.Length == 0)
                 {
-                    then?.Invoke();
+                    Say("Type a file name such as case.toml.");
+                    return false;
                 }
 
-                return problem is null;
+                if (File.Exists(path))
+                {
+                    Ask($"{Path.GetFileName(path)} exists. o overwrite it · Esc cancel", new Dictionary<Rune, Action>
+                    {
+                        [new Rune('o')] = () => SaveAs(path, then),
+                    });
+                    return true;
+                }
+
+                return SaveAs(path, then);
             });
             return false;
         }
@@ -894,6 +979,19 @@ internal sealed class EditorWindow : Runnable
         RefreshChrome();
         Say(failed?.ToString() ?? Session.Status);
         return failed is null;
+    }
+
+    private bool SaveAs(string path, Action? then)
+    {
+        var problem = Session.Save(path);
+        RefreshChrome();
+        Say(problem?.ToString() ?? Session.Status);
+        if (problem is null)
+        {
+            then?.Invoke();
+        }
+
+        return problem is null;
     }
 
     private void RequestQuit()
@@ -916,7 +1014,7 @@ internal sealed class EditorWindow : Runnable
             [new Rune('d')] = () =>
             {
                 WorkDiscarded = true;
-                AutosaveFiles.Delete(Session.AutosavePath);
+                Session.DiscardAutosave();
                 Quit();
             },
         });
@@ -931,13 +1029,13 @@ internal sealed class EditorWindow : Runnable
     private void Quit()
     {
         QuitRequested = true;
-        sweepCancel?.Cancel();
+        CancelSweep();
         App?.RequestStop();
     }
 
-    private void Ask(string question, Dictionary<Rune, Action> choices)
+    private void Ask(string question, Dictionary<Rune, Action> choices, Action? onCancel = null)
     {
-        prompt = new Prompt(question, choices, null);
+        prompt = new Prompt(question, choices, null, onCancel);
         message.Text = question;
         message.Visible = true;
         SetNeedsDraw();
@@ -945,7 +1043,7 @@ internal sealed class EditorWindow : Runnable
 
     private void AskText(string question, string initial, Func<string, bool> accept)
     {
-        prompt = new Prompt(question, null, accept);
+        prompt = new Prompt(question, null, accept, null);
         message.Text = question;
         message.Visible = true;
         message.Width = question.Length;
@@ -966,6 +1064,7 @@ internal sealed class EditorWindow : Runnable
         {
             EndPrompt();
             Say("cancelled");
+            p.OnCancel?.Invoke();
             return true;
         }
 
@@ -985,6 +1084,11 @@ internal sealed class EditorWindow : Runnable
                 }
 
                 return true;
+            }
+
+            if (key == Key.Tab || key == Key.Tab.WithShift || key == Key.F6 || key == Key.F6.WithShift)
+            {
+                return true; // focus stays in the prompt until it is answered
             }
 
             return false; // the prompt's text box types it
@@ -1066,5 +1170,5 @@ internal sealed class EditorWindow : Runnable
         return true;
     }
 
-    private sealed record Prompt(string Question, Dictionary<Rune, Action>? Choices, Func<string, bool>? Accept);
+    private sealed record Prompt(string Question, Dictionary<Rune, Action>? Choices, Func<string, bool>? Accept, Action? OnCancel);
 }

@@ -29,6 +29,18 @@ internal sealed class ThreadPoolSweepRunner(IApplication app) : ISweepRunner
                 {
                     // A newer design replaced this one; its own sweep is already running.
                 }
+                catch (Exception e) when (e is not OutOfMemoryException)
+                {
+                    // A failure here must reach the screen as a refusal, not vanish with the thread.
+                    var failed = Outcome<RobustnessReport>.Refused($"The robustness sweep failed ({e.GetType().Name}: {e.Message})", "Please report it; the design above is unaffected.");
+                    app.Invoke(() =>
+                    {
+                        if (!cancellation.IsCancellationRequested)
+                        {
+                            done(failed);
+                        }
+                    });
+                }
             },
             CancellationToken.None);
     }

@@ -44,10 +44,10 @@ wait_for "C(s) = " && echo "ok: first frame shows the design"
 check "the plant is shown" "G(s)  25/(s(s+5))"
 check "the proof is shown" "stable ✓"
 check "the picture has the target" "◆"
-before=$(screen | grep -o 's\* [-0-9.]* ±' | head -1)
+before=$(screen | grep -o 's\* [-0-9.]* ±' | head -1 || true)
 tmux send-keys -t "$session" Left
 wait_for "move target to" && echo "ok: a left arrow moves the target"
-after=$(screen | grep -o 's\* [-0-9.]* ±' | head -1)
+after=$(screen | grep -o 's\* [-0-9.]* ±' | head -1 || true)
 if [ "$before" != "$after" ]; then echo "ok: the target heading changed ($before → $after)"; else echo "FAIL: target unchanged" >&2; failures=$((failures + 1)); fi
 check "unsaved work is marked" "● unsaved"
 tmux send-keys -t "$session" F1
@@ -80,13 +80,14 @@ tmux kill-session -t "$session" 2>/dev/null || true
 rm -f "$work/exit"
 
 # 3. A dropped session (tmux kills the pane: SIGHUP) right after a key press keeps the work in the autosave.
-start "" "$work/belt-axis.toml"
+# The autosave timer is set to an hour here, so only the hang-up handler can have written it.
+start "COMPASSIST_AUTOSAVE_SECONDS=3600" "$work/belt-axis.toml"
 wait_for "C(s) = " >/dev/null
 tmux send-keys -t "$session" Up
 wait_for "move target to" >/dev/null
-moved=$(screen | grep -o 's\* [-0-9.]* ± [0-9.]*j' | head -1)
+moved=$(screen | grep -o 's\* [-0-9.]* ± [0-9.]*j' | head -1 || true)
 tmux kill-session -t "$session"
-sleep 0.5
+for _ in $(seq 1 50); do [ -f "$work/belt-axis.autosave.toml" ] && break; sleep 0.1; done
 if [ -f "$work/belt-axis.autosave.toml" ]; then
   echo "ok: the hung-up editor left belt-axis.autosave.toml ($moved)"
   im=$(echo "$moved" | sed -E 's/.*± ([0-9.]*)j/\1/')

@@ -26,7 +26,7 @@ internal static class HandoffFiles
             PlotExporter.Write(poles, Path.Combine(folder, $"{options.Name}-poles.svg"));
             return null;
         }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
             return new Problem($"cannot write into {folder}: {e.Message}", "Choose a folder you can write to.");
         }

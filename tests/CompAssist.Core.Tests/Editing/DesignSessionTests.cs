@@ -212,6 +212,31 @@ public sealed class DesignSessionTests : IDisposable
     }
 
     [Fact]
+    public void Autosave_CleanSession_LeavesAnAutosaveItDidNotWrite()
+    {
+        var path = CopyOfDemo();
+        var foreign = Path.Combine(folder, "belt-axis" + AutosaveFiles.Suffix);
+        File.WriteAllText(foreign, "work of an earlier session");
+        var session = Open(path);
+        Assert.Null(session.Autosave());
+        Assert.Equal("work of an earlier session", File.ReadAllText(foreign));
+        session.DiscardAutosave();
+        Assert.True(File.Exists(foreign));
+    }
+
+    [Theory]
+    [InlineData("")]
+    [InlineData("   ")]
+    public void Save_NoFileName_IsRefusedWithoutWritingAnything(string name)
+    {
+        var session = new DesignSession(new CaseFile { Plant = "1/(s+1)" }, null, folder);
+        var problem = session.Save(name);
+        Assert.NotNull(problem);
+        Assert.Null(session.Path);
+        Assert.Empty(Directory.GetFiles(folder));
+    }
+
+    [Fact]
     public void Save_NewCase_GoesToTheGivenPathAndRemovesTheUntitledAutosave()
     {
         var session = new DesignSession(new CaseFile(), null, folder);

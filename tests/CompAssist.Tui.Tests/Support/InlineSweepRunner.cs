@@ -19,6 +19,18 @@ internal sealed class InlineSweepRunner : ISweepRunner
         pending.Add((request, progress, done, cancellation));
     }
 
+    /// <summary>Reports progress from every pending sweep, as the thread pool would part-way through.</summary>
+    public void ReportProgress(int corners)
+    {
+        foreach (var (_, progress, _, token) in pending)
+        {
+            if (!token.IsCancellationRequested)
+            {
+                progress(corners);
+            }
+        }
+    }
+
     /// <summary>Runs every pending sweep that was not cancelled, as the thread pool would, and delivers the results.</summary>
     public void RunAll()
     {
