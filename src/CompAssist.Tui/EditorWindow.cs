@@ -711,7 +711,7 @@ internal sealed class EditorWindow : Runnable
         {
             "Fields take effect as you type. A field the design cannot read shows ! and a caret under the problem, and the last good design stays on screen. Numbers use a dot. Editing a requirement puts the target back at the requirement corner.",
             "Picture: × open-loop poles, ○ zeros, ◆ target, ■ designed closed-loop poles, dots the locus of the compensated loop, thin lines the ζ ray and ωn arc through the target. In ASCII: x poles, o zeros, * target, # closed-loop poles.",
-            $"Unsaved work is autosaved every second beside the case as NAME{AutosaveFiles.Suffix} (untitled{AutosaveFiles.Suffix} for a new case) and offered back when the case is opened again.",
+            $"Unsaved work is autosaved every second beside the case as NAME{AutosaveFiles.Suffix} (untitled{AutosaveFiles.Suffix} for a new case), and at once when the terminal hangs up. Opening the case again offers it back when it is newer than the case: r restores it, d discards it, Esc keeps it aside as NAME.autosave-DATE-TIME.toml.",
         })
         {
             foreach (var line in TextWrap.Lines(paragraph, 78))
