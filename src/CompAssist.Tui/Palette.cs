@@ -12,7 +12,7 @@ internal sealed class Palette
     private Palette(bool colour)
     {
         HasColour = colour;
-        var plain = colour ? new TuiAttribute(Color.None, Color.None) : new TuiAttribute(Color.None, Color.None);
+        var plain = new TuiAttribute(Color.None, Color.None);
         Normal = plain;
         Bar = colour ? new TuiAttribute(ColorName16.Black, ColorName16.Cyan) : new TuiAttribute(Color.None, Color.None, TextStyle.Reverse);
         Heading = colour ? new TuiAttribute(ColorName16.Cyan, Color.None, TextStyle.Bold) : new TuiAttribute(Color.None, Color.None, TextStyle.Bold);

@@ -94,6 +94,24 @@ public sealed class DesignSessionTests : IDisposable
     }
 
     [Fact]
+    public void Undo_MoreChangesThanTheDepth_KeepsTheLatestOnes()
+    {
+        var session = Open(CopyOfDemo());
+        for (var i = 0; i < DesignSession.UndoDepth + 10; i++)
+        {
+            session.MoveTarget(i % 2 == 0 ? MoveDirection.Left : MoveDirection.Right);
+        }
+
+        var undone = 0;
+        while (session.Undo())
+        {
+            undone++;
+        }
+
+        Assert.Equal(DesignSession.UndoDepth, undone);
+    }
+
+    [Fact]
     public void Edit_KeystrokesInOneField_AreOneUndoStep()
     {
         var session = Open(CopyOfDemo());
