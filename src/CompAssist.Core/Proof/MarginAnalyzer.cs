@@ -1,6 +1,7 @@
 using System.Numerics;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
 
 namespace CompAssist.Core.Proof;
 
@@ -195,29 +196,11 @@ public static class MarginAnalyzer
         return refined > bestValue ? (refined, x) : (bestValue, w[best]);
     }
 
+    // The bracket is halved geometrically (ω spans decades): bisection in ln ω, to a relative width of 1e-14.
     private static double Bisect(Func<double, double> f, double a, double b)
     {
-        var fa = f(a);
-        for (var i = 0; i < 100; i++)
-        {
-            var m = Math.Sqrt(a * b);
-            var fm = f(m);
-            if (fm == 0 || b - a <= 1e-14 * m)
-            {
-                return m;
-            }
-
-            if (Math.Sign(fm) == Math.Sign(fa))
-            {
-                a = m;
-                fa = fm;
-            }
-            else
-            {
-                b = m;
-            }
-        }
-
-        return Math.Sqrt(a * b);
+        double InLog(double u) => f(Math.Exp(u));
+        var (ua, ub) = (Math.Log(a), Math.Log(b));
+        return Math.Exp(Bisection.Root(InLog, ua, ub, InLog(ua), _ => 1e-14, maxSteps: 100));
     }
 }

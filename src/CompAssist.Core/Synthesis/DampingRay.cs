@@ -2,6 +2,7 @@ using System.Numerics;
 using CompAssist.Core.Analysis;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
 using CompAssist.Core.Targets;
 
 namespace CompAssist.Core.Synthesis;
@@ -43,21 +44,7 @@ public static class DampingRay
                 var fb = Residual(b);
                 if (Math.Sign(fa) != Math.Sign(fb) && Math.Abs(fa - fb) < 90)
                 {
-                    for (var i = 0; i < 200 && Math.Abs(b - a) > 1e-15 * r0; i++)
-                    {
-                        var m = 0.5 * (a + b);
-                        var fm = Residual(m);
-                        if (Math.Sign(fm) == Math.Sign(fa))
-                        {
-                            (a, fa) = (m, fm);
-                        }
-                        else
-                        {
-                            b = m;
-                        }
-                    }
-
-                    return Outcome<TargetPole>.Success(TargetPole.At(direction * (0.5 * (a + b))));
+                    return Outcome<TargetPole>.Success(TargetPole.At(direction * Bisection.Root(Residual, a, b, fa, _ => 1e-15 * r0)));
                 }
             }
         }
@@ -93,22 +80,7 @@ public static class DampingRay
             var value = Residual(r);
             if (Math.Sign(value) != Math.Sign(previous) && Math.Abs(value - previous) < 90)
             {
-                double a = previousR, b = r, fa = previous;
-                for (var k = 0; k < 200 && b - a > 1e-15 * b; k++)
-                {
-                    var m = 0.5 * (a + b);
-                    var fm = Residual(m);
-                    if (Math.Sign(fm) == Math.Sign(fa))
-                    {
-                        (a, fa) = (m, fm);
-                    }
-                    else
-                    {
-                        b = m;
-                    }
-                }
-
-                return Outcome<TargetPole>.Success(TargetPole.At(direction * (0.5 * (a + b))));
+                return Outcome<TargetPole>.Success(TargetPole.At(direction * Bisection.Root(Residual, previousR, r, previous, m => 1e-15 * m)));
             }
 
             (previousR, previous) = (r, value);

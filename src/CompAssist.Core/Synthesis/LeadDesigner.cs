@@ -4,6 +4,7 @@ using System.Numerics;
 using CompAssist.Core.Analysis;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
 using CompAssist.Core.Targets;
 
 namespace CompAssist.Core.Synthesis;
@@ -327,7 +328,7 @@ public static class LeadDesigner
             maxAngle = Math.Max(maxAngle, value + phi);
             if (Math.Sign(value) != Math.Sign(previous) && value != previous)
             {
-                solutions.Add(-Math.Exp(Bisect(Excess, previousU, u)));
+                solutions.Add(-Math.Exp(Bisection.Root(Excess, previousU, u, previous, m => 1e-15 * Math.Max(1.0, Math.Abs(m)))));
             }
 
             previous = value;
@@ -400,32 +401,6 @@ public static class LeadDesigner
 
         var note = $"Zero cancels the plant pole at {F(candidate.Real)}" + (stages > 1 ? $"; the other {stages - 1} stage zero(s) sit there too (only one pole is cancelled)." : ".");
         return FixedZero(s, candidate.Real, phi, perStageDegrees, note);
-    }
-
-    private static double Bisect(Func<double, double> f, double a, double b)
-    {
-        var fa = f(a);
-        for (var i = 0; i < 200; i++)
-        {
-            var m = 0.5 * (a + b);
-            var fm = f(m);
-            if (fm == 0 || Math.Abs(b - a) <= 1e-15 * Math.Max(1.0, Math.Abs(m)))
-            {
-                return m;
-            }
-
-            if (Math.Sign(fm) == Math.Sign(fa))
-            {
-                a = m;
-                fa = fm;
-            }
-            else
-            {
-                b = m;
-            }
-        }
-
-        return 0.5 * (a + b);
     }
 
     private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);

@@ -4,6 +4,7 @@ using System.Numerics;
 using CompAssist.Core.Analysis;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
 using CompAssist.Core.Targets;
 
 namespace CompAssist.Core.Synthesis;
@@ -136,22 +137,7 @@ public static class Synthesizer
             var value = Mismatch(u);
             if (double.IsFinite(previous) && double.IsFinite(value) && Math.Sign(previous) != Math.Sign(value))
             {
-                double a = previousU, b = u, fa = previous;
-                for (var k = 0; k < 200; k++)
-                {
-                    var m = 0.5 * (a + b);
-                    var fm = Mismatch(m);
-                    if (Math.Sign(fm) == Math.Sign(fa))
-                    {
-                        (a, fa) = (m, fm);
-                    }
-                    else
-                    {
-                        b = m;
-                    }
-                }
-
-                found = -Math.Exp(0.5 * (a + b));
+                found = -Math.Exp(Bisection.Root(Mismatch, previousU, u, previous, m => 1e-15 * Math.Max(1.0, Math.Abs(m))));
             }
 
             (previousU, previous) = (u, value);
