@@ -41,6 +41,7 @@ internal sealed class EditorWindow : Runnable
     private readonly List<EditorKey> keys = [];
     private readonly Label bar = new() { X = 0, Y = 0, Height = 1 };
     private readonly List<(Label Label, int Row)> headings = [];
+    private readonly Label loopHeading;
     private readonly Label compensatorLine = new() { X = 0, Width = FormWidth, Height = 1 };
     private readonly Label errorCaret = new() { X = 0, Width = FormWidth, Height = 1, Visible = false };
     private readonly Label errorMessage = new() { X = 0, Width = FormWidth, Height = 1, Visible = false };
@@ -79,7 +80,7 @@ internal sealed class EditorWindow : Runnable
         Height = Dim.Fill();
         SetScheme(palette.Scheme);
 
-        Heading("Loop", 1);
+        loopHeading = Heading("Loop", 1);
         AddField(CaseField.Plant, "G(s)", 2, 0, 6, FormWidth - 6);
         AddField(CaseField.Feedback, "H(s)", 3, 0, 6, FormWidth - 6);
         AddField(CaseField.Sign, "sign", 4, 0, 6, 4);
@@ -278,11 +279,12 @@ internal sealed class EditorWindow : Runnable
             });
     }
 
-    private void Heading(string text, int row)
+    private Label Heading(string text, int row)
     {
         var label = new Label { Text = text, X = 0, Width = FormWidth, Height = 1 };
         headings.Add((label, row));
         Add(label);
+        return label;
     }
 
     private void AddField(CaseField field, string label, int row, int labelX, int labelWidth, int boxWidth)
@@ -365,20 +367,10 @@ internal sealed class EditorWindow : Runnable
         }
     }
 
-    private void Act(Func<bool> change, bool reframe, bool refreshFields = false)
-    {
-        change();
-        AfterChange(reframe, refreshFields);
-    }
-
+    // A change through the session, then everything it shows redone and its status said.
     private void Act(Action change, bool reframe, bool refreshFields = false)
     {
         change();
-        AfterChange(reframe, refreshFields);
-    }
-
-    private void AfterChange(bool reframe, bool refreshFields)
-    {
         RefreshAll(reframe, refreshFields);
         Say(Session.Status);
     }
@@ -562,7 +554,7 @@ internal sealed class EditorWindow : Runnable
         SetText(compensatorLine, TextPage.Fit($"kind {kind}{(placement.Length > 0 ? "  placement " + PlacementNames.NameOf(s.Case.Lead.Placement) : string.Empty)}", FormWidth));
 
         var delay = (s.Latest.Report ?? s.LastGood)?.Design.Loop.Delay ?? 0.0;
-        SetText(headings[0].Label, delay > 0 ? TextPage.Fit($"Loop  delay {TransferFunctionFormatter.Number(delay, 4)} s, roots: Padé {s.Case.PadeOrder}", FormWidth) : "Loop");
+        SetText(loopHeading, delay > 0 ? TextPage.Fit($"Loop  delay {TransferFunctionFormatter.Number(delay, 4)} s, roots: Padé {s.Case.PadeOrder}", FormWidth) : "Loop");
 
         var target = s.CurrentTarget;
         SetText(planeHeading, target is { } t
@@ -752,11 +744,7 @@ internal sealed class EditorWindow : Runnable
     private string HandoffText()
     {
         var sb = new StringBuilder();
-        sb.AppendLine("CAUTION — read before any of this drives a machine:");
-        foreach (var line in Cautions.Wrapped(78, "  "))
-        {
-            sb.AppendLine(line);
-        }
+        Cautions.AppendSection(sb, "CAUTION — read before any of this drives a machine:");
 
         sb.AppendLine();
         if (Session.Latest.Report is not { } report)

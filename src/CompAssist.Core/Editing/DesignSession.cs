@@ -28,6 +28,10 @@ public sealed class DesignSession
     private readonly Lock autosaveLock = new();
     private string savedText;
 
+    // The case as the case file would hold it, kept with the case: dirtiness and "did anything change" are
+    // text comparisons against it, so each change writes the case text once.
+    private string caseText;
+
     // True once this session has written its autosave file: only then may it remove that file. An autosave
     // found at start belongs to an earlier session until the user restores or discards it.
     private bool ownsAutosave;
@@ -42,7 +46,8 @@ public sealed class DesignSession
         Case = initial;
         Path = path is null ? null : System.IO.Path.GetFullPath(path);
         WorkingDirectory = workingDirectory ?? Directory.GetCurrentDirectory();
-        savedText = path is null ? string.Empty : CaseFileWriter.Write(initial);
+        caseText = CaseFileWriter.Write(initial);
+        savedText = path is null ? string.Empty : caseText;
         Latest = Redesign(initial);
         CurrentTarget = TargetOf(initial, Latest, null);
         MotionScale = CurrentTarget is { } t0 && t0.Magnitude > 0 ? t0.Magnitude : 1.0;
@@ -92,7 +97,7 @@ public sealed class DesignSession
     public string Status { get; private set; } = string.Empty;
 
     /// <summary>True when the case differs from the file it came from (a new case is dirty once changed).</summary>
-    public bool IsDirty => CaseFileWriter.Write(Case) != savedText && !(Path is null && undo.Count == 0);
+    public bool IsDirty => caseText != savedText && !(Path is null && undo.Count == 0);
 
     /// <summary>True when there is a change to undo.</summary>
     public bool CanUndo => undo.Count > 0;
@@ -260,7 +265,7 @@ public sealed class DesignSession
             return new Problem($"'{target}' is not a file name to save to", "Type a file name such as case.toml (a folder before it must exist).");
         }
 
-        var text = CaseFileWriter.Write(Case);
+        var text = caseText;
         try
         {
             AtomicFile.Write(target, text, beforeRename);
@@ -302,7 +307,7 @@ public sealed class DesignSession
             {
                 if (IsDirty)
                 {
-                    AtomicFile.Write(file, CaseFileWriter.Write(Case));
+                    AtomicFile.Write(file, caseText);
                     ownsAutosave = true;
                 }
                 else if (ownsAutosave)
@@ -351,7 +356,8 @@ public sealed class DesignSession
 
     private bool Commit(CaseFile next, string what, string? coalesceKey)
     {
-        if (CaseFileWriter.Write(next) == CaseFileWriter.Write(Case))
+        var nextText = CaseFileWriter.Write(next);
+        if (nextText == caseText)
         {
             Status = "no change";
             return Latest.IsSuccess;
@@ -371,7 +377,7 @@ public sealed class DesignSession
         }
 
         redo.Clear();
-        Replace(next);
+        Replace(next, nextText);
         if (Latest.IsSuccess)
         {
             Status = what;
@@ -380,9 +386,10 @@ public sealed class DesignSession
         return Latest.IsSuccess;
     }
 
-    private void Replace(CaseFile next)
+    private void Replace(CaseFile next, string? text = null)
     {
         Case = next;
+        caseText = text ?? CaseFileWriter.Write(next);
         Revision++;
         Latest = Redesign(next);
         Robustness = null;

@@ -15,4 +15,15 @@ public static class Cautions
 
     /// <summary>The caution wrapped to a width, each line prefixed.</summary>
     public static IEnumerable<string> Wrapped(int width, string prefix = "") => TextWrap.Lines(Text, width, prefix, prefix);
+
+    /// <summary>Appends the caution under a heading, indented two spaces, 78 columns wide (the text reports).</summary>
+    public static void AppendSection(System.Text.StringBuilder sb, string heading = "Caution")
+    {
+        ArgumentNullException.ThrowIfNull(sb);
+        sb.AppendLine(heading);
+        foreach (var line in Wrapped(78, "  "))
+        {
+            sb.AppendLine(line);
+        }
+    }
 }

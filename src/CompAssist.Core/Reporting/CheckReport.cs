@@ -41,11 +41,7 @@ public static class CheckReport
             sb.AppendLine();
         }
 
-        sb.AppendLine("Caution");
-        foreach (var line in Cautions.Wrapped(78, "  "))
-        {
-            sb.AppendLine(line);
-        }
+        Cautions.AppendSection(sb);
 
         return sb.ToString();
     }

@@ -139,11 +139,7 @@ public static class DesignTextReport
             sb.AppendLine();
         }
 
-        sb.AppendLine("Caution");
-        foreach (var line in Cautions.Wrapped(78, "  "))
-        {
-            sb.AppendLine(line);
-        }
+        Cautions.AppendSection(sb);
 
         return sb.ToString();
     }

@@ -45,11 +45,7 @@ public static class DiscreteReport
         }
 
         sb.AppendLine();
-        sb.AppendLine("Caution");
-        foreach (var line in Cautions.Wrapped(78, "  "))
-        {
-            sb.AppendLine(line);
-        }
+        Cautions.AppendSection(sb);
 
         return sb.ToString();
     }
