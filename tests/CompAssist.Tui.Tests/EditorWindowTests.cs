@@ -366,7 +366,7 @@ public sealed class EditorWindowTests : IDisposable
 
         // Only the sweep of the current design may land; the first one was cancelled.
         h.Sweeps.RunAll();
-        Assert.Contains("robust 4/4 stable", h.Screen());
+        Assert.Contains("robust 4/4 stable, ", h.Screen());
         Assert.Equal(h.Session.Revision, h.Session.PendingSweep?.Revision ?? h.Session.Revision);
         Assert.Null(h.Session.PendingSweep);
     }

@@ -36,7 +36,7 @@ internal static class CheckCommand
             }
 
             stdout.Write(parse.GetValue(loop.Json) ? CheckReport.RenderJson(run.Result!) + Environment.NewLine : CheckReport.RenderText(run.Result!, input.Name));
-            return CliApplication.Success;
+            return run.Result!.Verdict.Meets ? CliApplication.Success : CliApplication.Fails;
         });
         return command;
     }

@@ -51,7 +51,7 @@ internal static class DesignCommand
 
         var report = run.Report!;
         stdout.Write(parse.GetValue(s.Loop.Json) ? DesignJsonReport.Render(report) + Environment.NewLine : DesignTextReport.Render(report, input.Name, s.Loop.Style(parse)));
-        return CliApplication.Success;
+        return report.Verdict.Meets ? CliApplication.Success : CliApplication.Fails;
     }
 
     /// <summary>The case with every design flag laid over it, or null (error written) on bad input.</summary>
@@ -60,6 +60,13 @@ internal static class DesignCommand
         var input = s.Loop.Apply(parse, stderr, out code);
         if (input is null)
         {
+            return null;
+        }
+
+        if (parse.GetValue(s.Type) is { } typeName && DesignWorkflow.KindOf(typeName) is null)
+        {
+            stderr.WriteLine($"error: --type '{typeName}' is not a compensator type. Use one of: {string.Join(", ", DesignWorkflow.SupportedTypes)}.");
+            code = CliApplication.InputError;
             return null;
         }
 

@@ -108,8 +108,15 @@ internal static class HandoffCommand
                 stdout.WriteLine($"  ! {w}");
             }
 
+            var verdict = run.Report!.Verdict;
+            stdout.WriteLine($"  continuous loop: {verdict.Status(run.Report.Robustness?.Corners.Length ?? 0)}");
+            foreach (var reason in verdict.Reasons)
+            {
+                stdout.WriteLine($"    ✗ {reason}");
+            }
+
             stdout.WriteLine("  CAUTION: the controller is not a safety function; read the caution in the report before running hardware.");
-            return proof.Stable ? CliApplication.Success : CliApplication.Refused;
+            return proof.Stable && verdict.Meets ? CliApplication.Success : CliApplication.Fails;
         });
         return command;
     }

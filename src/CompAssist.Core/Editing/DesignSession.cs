@@ -111,7 +111,7 @@ public sealed class DesignSession
     /// <summary>The sweep the current design still needs, or null when there is none to run.</summary>
     public SweepRequest? PendingSweep =>
         Latest.Report is { } report && !Case.Variations.IsEmpty && Robustness is null && RobustnessProblem is null
-            ? new SweepRequest(Revision, report.Design.Loop, report.Design.Compensator.TransferFunction, Case.Variations, Case.Check.Intervals)
+            ? new SweepRequest(Revision, report.Design.Loop, report.Design.Compensator.TransferFunction, Case.Variations, Case.Requirements)
             : null;
 
     /// <summary>Where the autosave of this session goes: beside the case, or in <see cref="WorkingDirectory"/> for a new case.</summary>

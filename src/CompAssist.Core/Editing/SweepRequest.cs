@@ -9,8 +9,8 @@ namespace CompAssist.Core.Editing;
 /// <param name="Loop">The nominal loop.</param>
 /// <param name="Compensator">The designed compensator.</param>
 /// <param name="Variations">The plant variations.</param>
-/// <param name="Intervals">Simulation intervals per corner.</param>
-public sealed record SweepRequest(int Revision, Loop Loop, TransferFunction Compensator, ImmutableArray<PlantVariation> Variations, int Intervals)
+/// <param name="Requirements">The requirements every corner is judged by.</param>
+public sealed record SweepRequest(int Revision, Loop Loop, TransferFunction Compensator, ImmutableArray<PlantVariation> Variations, Targets.Requirements Requirements)
 {
     /// <summary>Number of corners the sweep visits.</summary>
     public int Corners => RobustnessSweep.CornerCount(Variations.Length);
@@ -18,5 +18,5 @@ public sealed record SweepRequest(int Revision, Loop Loop, TransferFunction Comp
     /// <summary>Runs the sweep (on any thread: the inputs are immutable).</summary>
     /// <exception cref="OperationCanceledException">The sweep was cancelled.</exception>
     public Common.Outcome<RobustnessReport> Run(IProgress<int>? progress, CancellationToken cancellation) =>
-        RobustnessSweep.Run(Loop, Compensator, Variations, Intervals, progress, cancellation);
+        RobustnessSweep.Run(Loop, Compensator, Variations, Requirements, progress, cancellation);
 }

@@ -31,29 +31,47 @@ public static class LoopCheck
         ArgumentNullException.ThrowIfNull(compensator);
         ArgumentNullException.ThrowIfNull(options);
         var stable = closedLoopPoles.All(r => r.Real < 0);
+        var unstableRoots = closedLoopPoles.Count(r => r.Real >= 0);
         var transfers = ClosedLoopTransfers.Of(loop, compensator, closedLoopPoles);
         var horizon = Horizon(closedLoopPoles);
-        var h = horizon / options.Intervals;
-        var output = StepSimulator.Step(CascadeRealization.Of(transfers.Output), h, options.Intervals);
-        SampledResponse? effort = transfers.Effort is { } e ? StepSimulator.Step(CascadeRealization.Of(e), h, options.Intervals) : null;
-
-        var final = stable ? transfers.Output.DcGain : output.Values[^1];
-        var metrics = StepMetrics.Measure(output, final);
+        var outputSystem = CascadeRealization.Of(transfers.Output);
+        var effortSystem = transfers.Effort is { } e ? CascadeRealization.Of(e) : null;
+        var final = stable ? transfers.Output.DcGain : double.NaN;
+        var trajectory = StepTrajectory.Simulate(outputSystem, closedLoopPoles, horizon);
+        var measured = StepAnalysis.Measure(trajectory, stable ? final : trajectory.Value(trajectory.Count - 1));
+        var window = stable ? ShownWindow(measured, horizon) : horizon;
+        var h = window / options.Intervals;
+        var output = StepSimulator.Step(outputSystem, h, options.Intervals);
+        SampledResponse? effort = effortSystem is not null ? StepSimulator.Step(effortSystem, h, options.Intervals) : null;
+        var metrics = measured with { SampleTime = h };
         var stepError = stable ? 1.0 - final : double.NaN;
         var rampError = stable ? RampError(transfers.Output, stepError) : double.NaN;
         var constants = ErrorConstants.Of(loop, compensator);
         var margins = stable ? MarginAnalyzer.Analyze(loop, compensator) : null;
-        var effortFigures = Effort(effort, options);
+        var effortFigures = Effort(effortSystem, closedLoopPoles, horizon, options);
 
         var warnings = ImmutableArray.CreateBuilder<string>();
         if (!stable)
         {
-            warnings.Add("The closed loop is unstable: the step grows without bound and no margins are claimed.");
+            warnings.Add($"The closed loop is UNSTABLE: {unstableRoots} closed-loop root{(unstableRoots == 1 ? " is" : "s are")} in the right half-plane or on the imaginary axis. The step grows without bound, no margins are claimed and no requirement passes.");
         }
 
         if (stable && double.IsPositiveInfinity(metrics.SettlingTime2Percent))
         {
             warnings.Add($"The step has not settled within ±2 % by the end of the simulated {F(horizon)} s.");
+        }
+
+        foreach (var (grazes, band, time) in new[] { (metrics.Grazes2Percent, 2, metrics.SettlingTime2Percent), (metrics.Grazes5Percent, 5, metrics.SettlingTime5Percent) })
+        {
+            if (stable && grazes)
+            {
+                warnings.Add($"The response only grazes the ±{band} % band edge near its settling time ({F(time)} s): a tiny change of the loop moves the settling time by a whole period. Read it as uncertain by that much.");
+            }
+        }
+
+        if (margins is not null && margins.SelfCheckResidual > 1e-6)
+        {
+            warnings.Add($"The margin self-check did not close (residual {F(margins.SelfCheckResidual)}): a reported margin does not put a root exactly on the imaginary axis. Treat the margins as approximate.");
         }
 
         if (effortFigures.Saturates)
@@ -66,16 +84,8 @@ public static class LoopCheck
             warnings.Add("The compensator is improper (more zeros than poles): the actuator command contains an impulse at the step. Add a derivative filter.");
         }
 
-        var checks = ImmutableArray.CreateBuilder<RequirementCheck>();
         var prediction = target?.Predict();
-        checks.Add(new RequirementCheck("overshoot %", metrics.OvershootPercent, requirements?.MaxOvershootPercent, prediction?.OvershootPercent));
-        var band2 = requirements?.Band == SettlingBand.TwoPercent ? requirements.MaxSettlingTime : null;
-        var band5 = requirements?.Band == SettlingBand.FivePercent ? requirements.MaxSettlingTime : null;
-        checks.Add(new RequirementCheck("settling time 2 % (s)", metrics.SettlingTime2Percent, band2, prediction?.SettlingTime2Percent));
-        checks.Add(new RequirementCheck("settling time 5 % (s)", metrics.SettlingTime5Percent, band5, prediction?.SettlingTime5Percent));
-        checks.Add(new RequirementCheck("peak time (s)", metrics.PeakTime, requirements?.MaxPeakTime, prediction?.PeakTime));
-        checks.Add(new RequirementCheck("rise time 10-90 % (s)", metrics.RiseTime, null, null));
-
+        var checks = RequirementChecks.Of(metrics, stable, requirements, prediction, constants, effortFigures);
         if (stable && prediction is not null && target is not null && target.Zeta < 1)
         {
             var overshootGap = Math.Abs(metrics.OvershootPercent - prediction.OvershootPercent);
@@ -88,23 +98,49 @@ public static class LoopCheck
 
         foreach (var c in checks.Where(c => c.Passes == false))
         {
-            warnings.Add($"Requirement not met: {c.Name} is {F(c.Measured)}, the bound is {F(c.Required!.Value)}.");
+            warnings.Add(c.Valid
+                ? $"Requirement not met: {c.Name} is {F(c.Measured)}, the bound is {c.BoundSymbol} {F(c.Required!.Value)}."
+                : $"Requirement not met: {c.Name} (bound {c.BoundSymbol} {F(c.Required!.Value)}) cannot hold in an unstable loop.");
         }
 
         return new LoopCheckReport
         {
             Stable = stable,
+            UnstableRootCount = unstableRoots,
             Output = output,
             Effort = effort,
             Step = metrics,
+            ShownWindow = window,
+            TailContinues = window < horizon,
             StepError = stepError,
             RampError = rampError,
             ErrorConstants = constants,
             Margins = margins,
             EffortFigures = effortFigures,
-            Checks = checks.ToImmutable(),
+            Checks = checks,
             Warnings = warnings.ToImmutable(),
         };
+    }
+
+    /// <summary>
+    /// The window people are shown: the transient (three times the later of the peak and the 90 % crossing,
+    /// or 1.25 × the 2 % settling time when that is not much longer), never beyond the horizon. A slow tail
+    /// that sets a long horizon is then not allowed to squeeze the rise into a column of the picture.
+    /// </summary>
+    public static double ShownWindow(StepMetrics metrics, double horizon)
+    {
+        ArgumentNullException.ThrowIfNull(metrics);
+        var times = new[] { metrics.PeakTime, metrics.UndershootTime, metrics.RiseTime * 1.5 }.Where(double.IsFinite).ToList();
+        if (times.Count == 0)
+        {
+            return horizon;
+        }
+
+        var transient = 3.0 * times.Max();
+        var settle = metrics.SettlingTime2Percent;
+        var window = double.IsFinite(settle) && settle <= 4.0 * transient ? Math.Max(transient, 1.25 * settle) : transient;
+        // Only a window well short of the horizon is worth a "the tail continues" note; otherwise show it all.
+        return window > 0 && window < 0.6 * horizon ? window : horizon;
     }
 
     /// <summary>
@@ -148,24 +184,16 @@ public static class LoopCheck
         return -(t0 * logDerivative.Real);
     }
 
-    private static EffortFigures Effort(SampledResponse? u, CheckOptions options)
+    private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options)
     {
         if (u is null)
         {
             return new EffortFigures(double.PositiveInfinity, double.PositiveInfinity, 0.0, options.ReferenceStep, options.ActuatorLimit);
         }
 
-        var peakIndex = 0;
-        for (var k = 1; k < u.Values.Length; k++)
-        {
-            if (Math.Abs(u.Values[k]) > Math.Abs(u.Values[peakIndex]))
-            {
-                peakIndex = k;
-            }
-        }
-
+        var (peak, time) = StepAnalysis.PeakMagnitude(u, poles, horizon);
         var scale = options.ReferenceStep;
-        return new EffortFigures(u.Values[0] * scale, Math.Abs(u.Values[peakIndex] * scale), u.TimeAt(peakIndex), scale, options.ActuatorLimit);
+        return new EffortFigures(u.D * scale, peak * Math.Abs(scale), time, scale, options.ActuatorLimit);
     }
 
     private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);

@@ -9,13 +9,22 @@ public sealed record LoopCheckReport
     /// <summary>True when every closed-loop pole has a negative real part.</summary>
     public required bool Stable { get; init; }
 
-    /// <summary>The output step response y(t).</summary>
+    /// <summary>Number of closed-loop roots with a non-negative real part (0 when stable).</summary>
+    public required int UnstableRootCount { get; init; }
+
+    /// <summary>The window of <see cref="Output"/> and <see cref="Effort"/> in seconds (the transient; see <see cref="LoopCheck.ShownWindow"/>).</summary>
+    public required double ShownWindow { get; init; }
+
+    /// <summary>True when the simulated horizon (a slow tail) goes on beyond the shown window.</summary>
+    public required bool TailContinues { get; init; }
+
+    /// <summary>The output step response y(t) over the shown window, uniformly sampled for pictures.</summary>
     public required SampledResponse Output { get; init; }
 
     /// <summary>The actuator command u(t) for a unit step (null when the compensator is improper).</summary>
     public required SampledResponse? Effort { get; init; }
 
-    /// <summary>Measured step figures (final value from the closed-loop DC gain when stable).</summary>
+    /// <summary>Measured step figures on the exact solution over the whole horizon (final value from the closed-loop DC gain when stable).</summary>
     public required StepMetrics Step { get; init; }
 
     /// <summary>Steady-state error r − y for a unit step (stable loops).</summary>

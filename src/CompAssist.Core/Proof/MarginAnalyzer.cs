@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Numerics;
 using CompAssist.Core.Common;
 using CompAssist.Core.Model;
@@ -6,76 +7,251 @@ using CompAssist.Core.Numerics;
 namespace CompAssist.Core.Proof;
 
 /// <summary>
-/// Margins on a log-spaced frequency grid evaluated in factored form (products of the factors, rescaled
-/// against overflow), with every gain and phase crossover bracketed and refined by bisection.
+/// Margins over every crossover (Nyquist-criterion margins as in Franklin–Powell–Emami-Naeini, ch. 6; the
+/// delay margin as common practice). L(jω) is evaluated in factored form (products of the factors,
+/// rescaled against overflow) on a log-spaced grid that is refined where the phase or magnitude moves
+/// quickly (lightly damped modes, delays) and around every lightly damped pole and zero, so no crossing
+/// pair hides between two grid points. Every gain and phase crossover is bracketed and refined by bisection;
+/// ω = 0 and ω = ∞ are evaluated explicitly.
 /// </summary>
 public static class MarginAnalyzer
 {
-    /// <summary>Number of grid points.</summary>
-    public const int GridPoints = 1200;
+    /// <summary>Base grid points per decade (before refinement).</summary>
+    public const int PointsPerDecade = 60;
+
+    private const double MaxPhaseStep = 0.15;
+    private const double MaxLogMagnitudeStep = 0.2;
+    private const int MaxRefinementDepth = 16;
+    private const int MaxGridPoints = 40_000;
 
     /// <summary>Computes the margins of the loop with the compensator (sign folded in, delay exact).</summary>
     public static StabilityMargins Analyze(Loop loop, TransferFunction compensator)
     {
         ArgumentNullException.ThrowIfNull(loop);
-        var open = loop.OpenLoop(compensator).Scaled(loop.SignFactor);
-        var (lo, hi) = Range(open);
-        var logLo = Math.Log(lo);
-        var step = (Math.Log(hi) - logLo) / (GridPoints - 1);
-        var w = new double[GridPoints];
-        var mag = new double[GridPoints];
-        var phase = new double[GridPoints];
-        for (var i = 0; i < GridPoints; i++)
+        return Analyze(loop.OpenLoop(compensator).Scaled(loop.SignFactor));
+    }
+
+    /// <summary>Computes the margins of the open loop L for the characteristic equation 1 + L = 0.</summary>
+    public static StabilityMargins Analyze(TransferFunction open)
+    {
+        ArgumentNullException.ThrowIfNull(open);
+        var grid = Grid(open);
+        var gains = ImmutableArray.CreateBuilder<GainCrossing>();
+        var phases = new List<PhaseCrossing>();
+        if (DcCrossing(open) is { } dc)
         {
-            w[i] = Math.Exp(logLo + (i * step));
-            (mag[i], phase[i]) = LogMagnitudeAndPhase(open, w[i]);
+            phases.Add(dc);
         }
 
-        double pm = double.PositiveInfinity, wc = double.NaN, dm = double.PositiveInfinity;
-        double gm = double.PositiveInfinity, wp = double.NaN, gmDown = double.PositiveInfinity;
-        for (var i = 1; i < GridPoints; i++)
+        for (var i = 1; i < grid.Count; i++)
         {
-            if (Math.Sign(mag[i]) != Math.Sign(mag[i - 1]) && mag[i] != mag[i - 1])
+            var (w0, m0, p0) = grid[i - 1];
+            var (w1, m1, p1) = grid[i];
+            if (Math.Sign(m0) != Math.Sign(m1) && !double.IsNaN(m0) && !double.IsNaN(m1))
             {
-                var x = Bisect(u => LogMagnitudeAndPhase(open, u).LogMagnitude, w[i - 1], w[i]);
-                var margin = Angles.WrapDegrees(Angles.ToDegrees(LogMagnitudeAndPhase(open, x).Phase) + 180.0);
-                if (margin < pm)
-                {
-                    pm = margin;
-                    wc = x;
-                }
-
-                if (margin > 0)
-                {
-                    dm = Math.Min(dm, Angles.ToRadians(margin) / x);
-                }
-                else
-                {
-                    dm = 0.0;
-                }
+                var x = Bisect(u => LogMagnitudeAndPhase(open, u).LogMagnitude, w0, w1);
+                gains.Add(Gain(x, LogMagnitudeAndPhase(open, x).Phase));
             }
 
-            var a = WrappedFromMinus180(phase[i - 1]);
-            var b = WrappedFromMinus180(phase[i]);
+            var a = WrappedFromMinus180(p0);
+            var b = WrappedFromMinus180(p1);
             if (Math.Sign(a) != Math.Sign(b) && Math.Abs(a - b) < Math.PI)
             {
-                var x = Bisect(u => WrappedFromMinus180(LogMagnitudeAndPhase(open, u).Phase), w[i - 1], w[i]);
-                var logMag = LogMagnitudeAndPhase(open, x).LogMagnitude;
-                var db = -20.0 * logMag / Math.Log(10);
-                if (db > 0 && db < gm)
+                var x = Bisect(u => WrappedFromMinus180(LogMagnitudeAndPhase(open, u).Phase), w0, w1);
+                var (logMag, phase) = LogMagnitudeAndPhase(open, x);
+
+                // A jump of the phase through a pole or zero on the imaginary axis is no crossing.
+                if (Math.Abs(WrappedFromMinus180(phase)) < 1e-6 && double.IsFinite(logMag))
                 {
-                    gm = db;
-                    wp = x;
-                }
-                else if (db <= 0)
-                {
-                    gmDown = Math.Min(gmDown, -db);
+                    phases.Add(new PhaseCrossing(x, Math.Exp(logMag)));
                 }
             }
         }
 
-        var (ms, wms) = SensitivityPeak(open, w, mag, phase);
-        return new StabilityMargins(gm, wp, gmDown, pm, wc, dm, ms, wms);
+        if (HighFrequencyCrossing(open) is { } hf)
+        {
+            phases.Add(hf);
+        }
+
+        var (ms, wms) = SensitivityPeak(open, grid);
+        return Summarize(open, gains.ToImmutable(), [.. phases], ms, wms);
+    }
+
+    private static StabilityMargins Summarize(TransferFunction open, ImmutableArray<GainCrossing> gains, ImmutableArray<PhaseCrossing> phases, double ms, double wms)
+    {
+        double pm = double.PositiveInfinity, wc = double.NaN, dm = double.PositiveInfinity, wdm = double.NaN;
+        foreach (var g in gains)
+        {
+            if (g.DistanceDegrees < pm)
+            {
+                (pm, wc) = (g.DistanceDegrees, g.Frequency);
+            }
+
+            if (g.DelayMargin < dm)
+            {
+                (dm, wdm) = (g.DelayMargin, g.Frequency);
+            }
+        }
+
+        double up = double.PositiveInfinity, wUp = double.NaN, down = double.PositiveInfinity, wDown = double.NaN;
+        foreach (var p in phases)
+        {
+            var db = p.GainFactorDb;
+            if (p.Magnitude <= 1.0 && db < up)
+            {
+                (up, wUp) = (db, p.Frequency);
+            }
+            else if (p.Magnitude > 1.0 && -db < down)
+            {
+                (down, wDown) = (-db, p.Frequency);
+            }
+        }
+
+        return new StabilityMargins
+        {
+            GainCrossings = gains,
+            PhaseCrossings = phases,
+            GainMarginDb = up,
+            PhaseCrossover = wUp,
+            GainReductionMarginDb = down,
+            GainReductionCrossover = wDown,
+            PhaseMarginDeg = pm,
+            GainCrossover = wc,
+            DelayMargin = dm,
+            DelayMarginCrossover = wdm,
+            SensitivityPeak = ms,
+            SensitivityPeakFrequency = wms,
+            SelfCheckResidual = SelfCheck(open, gains, phases),
+        };
+    }
+
+    private static GainCrossing Gain(double omega, double phaseRadians)
+    {
+        // ∠L wrapped into (−360°, 0°]; the signed figure 180° + ∠L then lies in (−180°, 180°].
+        var phase = Angles.ToDegrees(phaseRadians) % 360.0;
+        if (phase > 0)
+        {
+            phase -= 360.0;
+        }
+
+        var signed = 180.0 + phase;
+        var lag = signed >= 0 ? signed : signed + 360.0;
+        return new GainCrossing(omega, phase, signed, Math.Abs(signed), Angles.ToRadians(lag) / omega);
+    }
+
+    /// <summary>ω = 0 is a phase crossover when L(0) is finite, real and negative (an open-loop unstable plant, say).</summary>
+    private static PhaseCrossing? DcCrossing(TransferFunction open)
+    {
+        var l0 = open.DcGain;
+        return double.IsFinite(l0) && l0 < 0 ? new PhaseCrossing(0.0, -l0) : null;
+    }
+
+    /// <summary>ω = ∞ is a phase crossover of a biproper loop without delay whose high-frequency gain is negative.</summary>
+    private static PhaseCrossing? HighFrequencyCrossing(TransferFunction open) =>
+        open.RelativeDegree == 0 && open.Delay == 0 && open.Gain < 0 ? new PhaseCrossing(double.PositiveInfinity, -open.Gain) : null;
+
+    private static double SelfCheck(TransferFunction open, ImmutableArray<GainCrossing> gains, ImmutableArray<PhaseCrossing> phases)
+    {
+        var worst = 0.0;
+        foreach (var p in phases.Where(p => double.IsFinite(p.Frequency) && p.Frequency > 0))
+        {
+            worst = Math.Max(worst, Residual(open, p.Frequency, p.GainFactor, 0.0));
+        }
+
+        foreach (var g in gains)
+        {
+            worst = Math.Max(worst, Residual(open, g.Frequency, 1.0, g.DelayMargin));
+        }
+
+        return worst;
+    }
+
+    /// <summary>|1 + k·L(jω)·e^(−jωτ)| / (1 + |k·L(jω)|): zero when s = jω is a closed-loop root.</summary>
+    private static double Residual(TransferFunction open, double omega, double k, double extraDelay)
+    {
+        var (logMag, phase) = LogMagnitudeAndPhase(open, omega);
+        var z = Complex.FromPolarCoordinates(k * Math.Exp(logMag), phase - (omega * extraDelay));
+        return Complex.Abs(1.0 + z) / (1.0 + z.Magnitude);
+    }
+
+    /// <summary>
+    /// The frequency grid: a log-spaced base over every corner (three decades beyond each side, and beyond
+    /// 1/delay), points around each lightly damped pole and zero, then intervals halved (in ln ω) wherever the
+    /// phase moves more than 0.15 rad or ln|L| more than 0.2 between neighbours.
+    /// </summary>
+    private static List<(double W, double LogMag, double Phase)> Grid(TransferFunction open)
+    {
+        var (lo, hi) = Range(open);
+        var decades = Math.Log10(hi / lo);
+        var count = Math.Max(200, (int)Math.Ceiling(decades * PointsPerDecade));
+        var points = new List<double>(count + 64);
+        var logLo = Math.Log(lo);
+        var step = (Math.Log(hi) - logLo) / (count - 1);
+        for (var i = 0; i < count; i++)
+        {
+            points.Add(Math.Exp(logLo + (i * step)));
+        }
+
+        foreach (var r in open.Zeros.Concat(open.Poles).Where(r => r.Imaginary > 0))
+        {
+            var width = Math.Max(Math.Abs(r.Real), 1e-9 * r.Imaginary);
+            if (width < 0.3 * r.Imaginary)
+            {
+                foreach (var k in (ReadOnlySpan<double>)[-4, -2, -1, -0.5, -0.2, 0.2, 0.5, 1, 2, 4])
+                {
+                    var w = r.Imaginary + (k * width);
+                    if (w > lo && w < hi)
+                    {
+                        points.Add(w);
+                    }
+                }
+            }
+        }
+
+        points.Sort();
+        var grid = new List<(double W, double LogMag, double Phase)>(points.Count * 2);
+        foreach (var w in points)
+        {
+            var (m, p) = LogMagnitudeAndPhase(open, w);
+            grid.Add((w, m, p));
+        }
+
+        return Refine(open, grid);
+    }
+
+    private static List<(double W, double LogMag, double Phase)> Refine(TransferFunction open, List<(double W, double LogMag, double Phase)> coarse)
+    {
+        var fine = new List<(double W, double LogMag, double Phase)>(coarse.Count * 2) { coarse[0] };
+        var pending = new Stack<((double W, double LogMag, double Phase) Point, int Depth)>();
+        for (var i = 1; i < coarse.Count; i++)
+        {
+            pending.Push((coarse[i], 0));
+            while (pending.Count > 0)
+            {
+                var (next, depth) = pending.Peek();
+                var last = fine[^1];
+                var jump = Math.Abs(Math.IEEERemainder(next.Phase - last.Phase, 2 * Math.PI));
+                var rise = Math.Abs(next.LogMag - last.LogMag);
+                var needs = jump > MaxPhaseStep || (rise > MaxLogMagnitudeStep && double.IsFinite(rise));
+                if (needs && depth < MaxRefinementDepth && fine.Count + pending.Count < MaxGridPoints)
+                {
+                    var w = Math.Sqrt(last.W * next.W);
+                    if (w > last.W && w < next.W)
+                    {
+                        var (m, p) = LogMagnitudeAndPhase(open, w);
+                        pending.Pop();
+                        pending.Push((next, depth + 1));
+                        pending.Push(((w, m, p), depth + 1));
+                        continue;
+                    }
+                }
+
+                fine.Add(next);
+                pending.Pop();
+            }
+        }
+
+        return fine;
     }
 
     private static (double Lo, double Hi) Range(TransferFunction open)
@@ -88,13 +264,24 @@ public static class MarginAnalyzer
             hi = Math.Max(hi, 100.0 / open.Delay);
         }
 
+        // |L| at the ends: extend until the loop is far from 1 (a high-gain or low-gain loop can cross outside).
+        for (var i = 0; i < 12 && Math.Abs(LogMagnitudeAndPhase(open, lo).LogMagnitude) < 2.5; i++)
+        {
+            lo /= 10.0;
+        }
+
+        for (var i = 0; i < 12 && Math.Abs(LogMagnitudeAndPhase(open, hi).LogMagnitude) < 2.5 && open.RelativeDegree > 0; i++)
+        {
+            hi *= 10.0;
+        }
+
         return (Math.Min(lo, 1e-3), Math.Max(hi, 1e3));
     }
 
     /// <summary>
-    /// ln|L(jω)| and the phase of L(jω) in (−π, π], from the factor products Π(jω − z) and Π(jω − p)
-    /// accumulated separately with periodic rescaling: one logarithm and one arctangent per frequency.
-    /// Crossover detection works on the phase modulo 2π, so no unwrapping is needed.
+    /// ln|L(jω)| and the phase of L(jω) in (−π, π] (less ωT for a delay), from the factor products Π(jω − z)
+    /// and Π(jω − p) accumulated separately with periodic rescaling: one logarithm and one arctangent per
+    /// frequency. Crossover detection works on the phase modulo 2π, so no unwrapping is needed.
     /// </summary>
     internal static (double LogMagnitude, double Phase) LogMagnitudeAndPhase(TransferFunction open, double omega)
     {
@@ -114,7 +301,7 @@ public static class MarginAnalyzer
         return (logMag, phase - (omega * open.Delay));
     }
 
-    private static (double Re, double Im, int Exponent) Product(System.Collections.Immutable.ImmutableArray<Complex> roots, double omega)
+    private static (double Re, double Im, int Exponent) Product(ImmutableArray<Complex> roots, double omega)
     {
         double re = 1.0, im = 0.0;
         var exponent = 0;
@@ -127,7 +314,7 @@ public static class MarginAnalyzer
             im = (re * fi) + (im * fr);
             re = nre;
             var size = Math.Abs(re) + Math.Abs(im);
-            if (size > 1e100 || size < 1e-100)
+            if ((size > 1e100 || size < 1e-100) && size > 0)
             {
                 var e = Math.ILogB(size);
                 re = Math.ScaleB(re, -e);
@@ -146,7 +333,7 @@ public static class MarginAnalyzer
         return x <= -Math.PI ? x + (2 * Math.PI) : x;
     }
 
-    private static (double Peak, double Frequency) SensitivityPeak(TransferFunction open, double[] w, double[] logMag, double[] phase)
+    private static (double Peak, double Frequency) SensitivityPeak(TransferFunction open, List<(double W, double LogMag, double Phase)> grid)
     {
         static double FromPolar(double logMagnitude, double angle)
         {
@@ -163,10 +350,10 @@ public static class MarginAnalyzer
         }
 
         var best = 0;
-        var bestValue = FromPolar(logMag[0], phase[0]);
-        for (var i = 1; i < w.Length; i++)
+        var bestValue = FromPolar(grid[0].LogMag, grid[0].Phase);
+        for (var i = 1; i < grid.Count; i++)
         {
-            var v = FromPolar(logMag[i], phase[i]);
+            var v = FromPolar(grid[i].LogMag, grid[i].Phase);
             if (v > bestValue)
             {
                 bestValue = v;
@@ -175,7 +362,7 @@ public static class MarginAnalyzer
         }
 
         // Golden-section refinement between the neighbours of the best grid point.
-        double a = w[Math.Max(best - 1, 0)], b = w[Math.Min(best + 1, w.Length - 1)];
+        double a = grid[Math.Max(best - 1, 0)].W, b = grid[Math.Min(best + 1, grid.Count - 1)].W;
         const double g = 0.6180339887498949;
         for (var k = 0; k < 60 && b - a > 1e-12 * b; k++)
         {
@@ -193,7 +380,7 @@ public static class MarginAnalyzer
 
         var x = 0.5 * (a + b);
         var refined = Sensitivity(x);
-        return refined > bestValue ? (refined, x) : (bestValue, w[best]);
+        return refined > bestValue ? (refined, x) : (bestValue, grid[best].W);
     }
 
     // The bracket is halved geometrically (ω spans decades): bisection in ln ω, to a relative width of 1e-14.

@@ -51,6 +51,9 @@ public sealed record PlantVariation(Complex? Pole, double Percent)
         return Outcome<PlantVariation>.Success(new PlantVariation(pole, percent));
     }
 
+    /// <summary>What is varied: "gain" or "pole -2".</summary>
+    public string Subject => Pole is { } p ? $"pole {p.Real.ToString("G4", CultureInfo.InvariantCulture)}" : "gain";
+
     /// <summary>Short text such as "gain ±20 %" or "pole -2 ±10 %".</summary>
     public override string ToString() =>
         Pole is { } p ? $"pole {p.Real.ToString("G4", CultureInfo.InvariantCulture)} ±{Percent.ToString("G3", CultureInfo.InvariantCulture)} %" : $"gain ±{Percent.ToString("G3", CultureInfo.InvariantCulture)} %";

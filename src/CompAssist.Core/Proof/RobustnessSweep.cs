@@ -4,6 +4,7 @@ using CompAssist.Core.Common;
 using CompAssist.Core.Model;
 using CompAssist.Core.Numerics;
 using CompAssist.Core.Simulation;
+using CompAssist.Core.Targets;
 
 namespace CompAssist.Core.Proof;
 
@@ -17,15 +18,15 @@ public static class RobustnessSweep
     public static int CornerCount(int variationCount) => 1 << variationCount;
 
     /// <summary>
-    /// Runs the sweep; refuses variations that name no plant pole. <paramref name="progress"/> hears the number of
-    /// corners done after each one; <paramref name="cancellation"/> stops between corners.
+    /// Runs the sweep and judges every corner by <paramref name="requirements"/> (the same rows and rule as the
+    /// nominal loop); refuses variations that name no plant pole.
     /// </summary>
     /// <exception cref="OperationCanceledException">The sweep was cancelled.</exception>
     public static Outcome<RobustnessReport> Run(
         Loop loop,
         TransferFunction compensator,
         IReadOnlyList<PlantVariation> variations,
-        int intervals = 2000,
+        Requirements? requirements = null,
         IProgress<int>? progress = null,
         CancellationToken cancellation = default)
     {
@@ -59,14 +60,14 @@ public static class RobustnessSweep
                 .Select(i => 1.0 + ((((mask >> i) & 1) == 1 ? 1 : -1) * variations[i].Percent / 100.0))
                 .ToImmutableArray();
             cancellation.ThrowIfCancellationRequested();
-            corners.Add(Corner(loop, compensator, variations, factors, intervals));
+            corners.Add(Corner(loop, compensator, variations, factors, requirements));
             progress?.Report(mask + 1);
         }
 
         return Outcome<RobustnessReport>.Success(new RobustnessReport([.. variations], corners.MoveToImmutable()));
     }
 
-    private static RobustnessCorner Corner(Loop loop, TransferFunction compensator, IReadOnlyList<PlantVariation> variations, ImmutableArray<double> factors, int intervals)
+    private static RobustnessCorner Corner(Loop loop, TransferFunction compensator, IReadOnlyList<PlantVariation> variations, ImmutableArray<double> factors, Requirements? requirements)
     {
         var gain = loop.Plant.Gain;
         var poles = loop.Plant.Poles.ToList();
@@ -99,19 +100,37 @@ public static class RobustnessSweep
             var leastDamping = roots.Min(r => r.Magnitude == 0 ? 0.0 : -r.Real / r.Magnitude);
             if (roots.Any(r => r.Real >= 0))
             {
-                return new RobustnessCorner(factors, false, double.NaN, double.NaN, leastDamping);
+                return Unstable(factors, leastDamping, requirements);
             }
 
             var output = ClosedLoopTransfers.Of(varied, compensator, roots).Output;
-            var horizon = LoopCheck.Horizon(roots);
-            var y = StepSimulator.Step(CascadeRealization.Of(output), horizon / intervals, intervals);
-            var m = StepMetrics.Measure(y, output.DcGain);
-            return new RobustnessCorner(factors, true, m.OvershootPercent, m.SettlingTime2Percent, leastDamping);
+            var m = StepAnalysis.Measure(CascadeRealization.Of(output), roots, output.DcGain, LoopCheck.Horizon(roots));
+            var constants = ErrorConstants.Of(varied, compensator);
+            return new RobustnessCorner(factors, true, m, RequirementChecks.Of(m, true, requirements, constants: constants), leastDamping);
         }
         catch (RootFindingException)
         {
-            return new RobustnessCorner(factors, false, double.NaN, double.NaN, double.NaN);
+            return Unstable(factors, double.NaN, requirements);
         }
+    }
+
+    private static RobustnessCorner Unstable(ImmutableArray<double> factors, double leastDamping, Requirements? requirements)
+    {
+        var nothing = new StepMetrics
+        {
+            FinalValue = double.NaN,
+            PeakValue = double.NaN,
+            OvershootPercent = double.NaN,
+            PeakTime = double.NaN,
+            UndershootPercent = double.NaN,
+            UndershootTime = double.NaN,
+            RiseTime = double.NaN,
+            SettlingTime2Percent = double.NaN,
+            SettlingTime5Percent = double.NaN,
+            Horizon = double.NaN,
+            SampleTime = double.NaN,
+        };
+        return new RobustnessCorner(factors, false, null, RequirementChecks.Of(nothing, false, requirements), leastDamping);
     }
 
     private static bool Matches(Complex pole, Complex named) =>

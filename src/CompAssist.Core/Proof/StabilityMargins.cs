@@ -1,23 +1,60 @@
+using System.Collections.Immutable;
+
 namespace CompAssist.Core.Proof;
 
 /// <summary>
-/// Classical margins of the loop L = ±C·G·H (delays exact). Infinite values mean "no such crossover".
-/// Frequencies in rad/s, delay margin in seconds.
+/// Classical margins of a stable loop L = ±C·G·H (delays exact), over every crossover. An infinite value
+/// means "no crossover of that kind exists". Frequencies in rad/s, angles in degrees, delays in seconds,
+/// gain margins in dB (always as a positive number of dB, upward and downward apart).
 /// </summary>
-/// <param name="GainMarginDb">Smallest factor (dB) by which the loop gain may rise before instability, over every phase crossover with |L| &lt; 1.</param>
-/// <param name="PhaseCrossover">Frequency of that phase crossover (∠L = −180°).</param>
-/// <param name="GainReductionMarginDb">Smallest factor (dB) by which the gain may fall before instability (conditionally stable loops), over phase crossovers with |L| &gt; 1.</param>
-/// <param name="PhaseMarginDeg">Smallest phase margin over every gain crossover (|L| = 1), degrees.</param>
-/// <param name="GainCrossover">Frequency of that gain crossover.</param>
-/// <param name="DelayMargin">Smallest extra loop delay that destabilizes, PM/ωc over the gain crossovers.</param>
-/// <param name="SensitivityPeak">Ms = max |1/(1 + L(jω))|.</param>
-/// <param name="SensitivityPeakFrequency">Where Ms occurs.</param>
-public sealed record StabilityMargins(
-    double GainMarginDb,
-    double PhaseCrossover,
-    double GainReductionMarginDb,
-    double PhaseMarginDeg,
-    double GainCrossover,
-    double DelayMargin,
-    double SensitivityPeak,
-    double SensitivityPeakFrequency);
+public sealed record StabilityMargins
+{
+    /// <summary>Every gain crossover (|L| = 1), in increasing frequency.</summary>
+    public required ImmutableArray<GainCrossing> GainCrossings { get; init; }
+
+    /// <summary>Every phase crossover (L real and negative), in increasing frequency, ω = 0 and ω = ∞ included when they are ones.</summary>
+    public required ImmutableArray<PhaseCrossing> PhaseCrossings { get; init; }
+
+    /// <summary>
+    /// The factor (dB) by which the loop gain may rise before a closed-loop root reaches the imaginary axis:
+    /// the smallest 1/|L| over phase crossovers with |L| &lt; 1; +∞ when there is none.
+    /// </summary>
+    public required double GainMarginDb { get; init; }
+
+    /// <summary>Frequency of the phase crossover that sets <see cref="GainMarginDb"/> (NaN when none).</summary>
+    public required double PhaseCrossover { get; init; }
+
+    /// <summary>
+    /// The factor (dB) by which the loop gain may fall before a closed-loop root reaches the imaginary axis:
+    /// the smallest |L| over phase crossovers with |L| &gt; 1 (ω = 0 included); +∞ when there is none.
+    /// </summary>
+    public required double GainReductionMarginDb { get; init; }
+
+    /// <summary>Frequency of the phase crossover that sets <see cref="GainReductionMarginDb"/> (NaN when none).</summary>
+    public required double GainReductionCrossover { get; init; }
+
+    /// <summary>The phase margin: the smallest angular distance from L(jωc) to −1 over every gain crossover; +∞ when |L| never crosses 1.</summary>
+    public required double PhaseMarginDeg { get; init; }
+
+    /// <summary>The gain crossover of <see cref="PhaseMarginDeg"/> (NaN when none).</summary>
+    public required double GainCrossover { get; init; }
+
+    /// <summary>The smallest extra loop delay that puts a closed-loop root on the imaginary axis, over every gain crossover; +∞ when none.</summary>
+    public required double DelayMargin { get; init; }
+
+    /// <summary>The gain crossover of <see cref="DelayMargin"/> (NaN when none).</summary>
+    public required double DelayMarginCrossover { get; init; }
+
+    /// <summary>Ms = max |1/(1 + L(jω))|.</summary>
+    public required double SensitivityPeak { get; init; }
+
+    /// <summary>Where Ms occurs.</summary>
+    public required double SensitivityPeakFrequency { get; init; }
+
+    /// <summary>
+    /// The largest self-check residual: for each phase crossover, |1 + k·L(jωp)| / (1 + |k·L(jωp)|) with k its
+    /// gain factor, and for each gain crossover the same with the delay margin's extra lag applied. Small
+    /// (≤ 1e-6) when every reported margin really puts a closed-loop root on the imaginary axis.
+    /// </summary>
+    public required double SelfCheckResidual { get; init; }
+}

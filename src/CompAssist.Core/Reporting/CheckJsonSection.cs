@@ -6,6 +6,24 @@ namespace CompAssist.Core.Reporting;
 /// <summary>The JSON <c>check</c> object (shared by the design and check reports).</summary>
 public static class CheckJsonSection
 {
+    /// <summary>Writes <c>"verdict": {meets, status, reasons}</c>.</summary>
+    public static void WriteVerdict(Utf8JsonWriter w, LoopVerdict verdict)
+    {
+        ArgumentNullException.ThrowIfNull(w);
+        ArgumentNullException.ThrowIfNull(verdict);
+        w.WriteStartObject("verdict");
+        w.WriteBoolean("meets", verdict.Meets);
+        w.WriteString("status", verdict.Name);
+        w.WriteStartArray("reasons");
+        foreach (var r in verdict.Reasons)
+        {
+            w.WriteStringValue(r);
+        }
+
+        w.WriteEndArray();
+        w.WriteEndObject();
+    }
+
     /// <summary>Writes <c>"check": {...}</c>.</summary>
     public static void Write(Utf8JsonWriter w, LoopCheckReport check, RobustnessReport? robustness)
     {
@@ -23,11 +41,17 @@ public static class CheckJsonSection
         n(w, "settlingTime5", m.SettlingTime5Percent);
         n(w, "finalValue", m.FinalValue);
         n(w, "peakValue", m.PeakValue);
+        n(w, "undershootPercent", m.UndershootPercent);
+        n(w, "undershootTime", m.UndershootTime);
+        w.WriteBoolean("grazes2", m.Grazes2Percent);
+        w.WriteBoolean("grazes5", m.Grazes5Percent);
+        n(w, "shownWindow", check.ShownWindow);
+        w.WriteBoolean("tailContinues", check.TailContinues);
         n(w, "stepError", check.StepError);
         n(w, "rampError", check.RampError);
         n(w, "sampleTime", m.SampleTime);
         n(w, "horizon", m.Horizon);
-        w.WriteString("definitions", "overshoot (peak-final)/|final|; rise 10-90 %; settling: last exit from the ±2 %/±5 % band; errors r - y");
+        w.WriteString("definitions", "measured on the exact solution toward the final value f: overshoot (peak - f)/|f| in %, 0 when the response never passes f; peakTime \"inf\" when there is no overshoot; undershoot: largest excursion away from f in % of |f|; rise 10-90 %; settling: last entry into the ±2 %/±5 % band, \"inf\" when not settled at the horizon; grazes: the response only touches the band edge, so the settling time is uncertain by a period; errors r - y");
         w.WriteEndObject();
 
         w.WriteStartObject("errorConstants");
@@ -48,11 +72,39 @@ public static class CheckJsonSection
             n(w, "gainReductionMarginDb", g.GainReductionMarginDb);
             n(w, "sensitivityPeak", g.SensitivityPeak);
             n(w, "sensitivityPeakFrequency", g.SensitivityPeakFrequency);
+            n(w, "gainReductionCrossover", g.GainReductionCrossover);
+            n(w, "delayMarginCrossover", g.DelayMarginCrossover);
+            w.WriteStartArray("gainCrossings");
+            foreach (var c in g.GainCrossings)
+            {
+                w.WriteStartObject();
+                n(w, "frequency", c.Frequency);
+                n(w, "phaseDeg", c.PhaseDegrees);
+                n(w, "signedMarginDeg", c.SignedMarginDegrees);
+                n(w, "distanceDeg", c.DistanceDegrees);
+                n(w, "delayMargin", c.DelayMargin);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteStartArray("phaseCrossings");
+            foreach (var c in g.PhaseCrossings)
+            {
+                w.WriteStartObject();
+                n(w, "frequency", c.Frequency);
+                n(w, "magnitude", c.Magnitude);
+                n(w, "gainFactorDb", c.GainFactorDb);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            n(w, "selfCheckResidual", g.SelfCheckResidual);
             w.WriteEndObject();
         }
         else
         {
             w.WriteNull("margins");
+            w.WriteNumber("unstableRoots", check.UnstableRootCount);
         }
 
         var e = check.EffortFigures;
@@ -88,6 +140,7 @@ public static class CheckJsonSection
             if (c.Passes is { } pass)
             {
                 w.WriteBoolean("passes", pass);
+                w.WriteString("bound", c.Bound == RequirementBound.AtMost ? "at-most" : "at-least");
             }
 
             w.WriteEndObject();
@@ -99,6 +152,7 @@ public static class CheckJsonSection
         {
             w.WriteStartObject("robustness");
             w.WriteBoolean("allStable", robustness.AllStable);
+            w.WriteBoolean("allMeet", robustness.AllMeet);
             n(w, "worstOvershootPercent", robustness.WorstOvershootPercent);
             n(w, "worstSettlingTime2", robustness.WorstSettlingTime2Percent);
             n(w, "leastDamping", robustness.LeastDamping);
@@ -124,6 +178,14 @@ public static class CheckJsonSection
                 n(w, "overshootPercent", corner.OvershootPercent);
                 n(w, "settlingTime2", corner.SettlingTime2Percent);
                 n(w, "leastDamping", corner.LeastDamping);
+                w.WriteBoolean("meets", corner.Meets);
+                w.WriteStartArray("failing");
+                foreach (var row in corner.Failing)
+                {
+                    w.WriteStringValue(row.Name);
+                }
+
+                w.WriteEndArray();
                 w.WriteEndObject();
             }
 

@@ -30,6 +30,7 @@ public static class CheckReport
 
         sb.AppendLine();
         CheckTextSection.Append(sb, result.Check, result.Robustness);
+        CheckTextSection.AppendVerdict(sb, result.Verdict, result.Robustness);
         if (result.Check.Warnings.Length > 0)
         {
             sb.AppendLine("Warnings");
@@ -76,6 +77,7 @@ public static class CheckReport
             w.WriteEndArray();
             w.WriteEndObject();
             CheckJsonSection.Write(w, result.Check, result.Robustness);
+            CheckJsonSection.WriteVerdict(w, result.Verdict);
             w.WriteString("caution", Cautions.Text);
             w.WriteEndObject();
         }

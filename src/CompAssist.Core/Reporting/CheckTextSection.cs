@@ -15,31 +15,35 @@ public static class CheckTextSection
         ArgumentNullException.ThrowIfNull(sb);
         ArgumentNullException.ThrowIfNull(check);
         var m = check.Step;
-        sb.AppendLine($"Simulated unit step (exact at {N(m.SampleTime, 3)} s samples over {N(m.Horizon, 4)} s)");
+        sb.AppendLine($"Simulated unit step (exact solution over {N(m.Horizon, 4)} s; every figure solved on it, not read off samples)");
         sb.AppendLine("  figure                     measured    required   predicted   result");
         foreach (var c in check.Checks)
         {
-            var result = c.Passes switch { true => "pass", false => "FAIL", null => string.Empty };
-            sb.AppendLine($"  {c.Name,-25} {N(c.Measured, 4),9}   {(c.Required is { } r ? "≤ " + N(r, 4) : "-"),9}   {(c.Predicted is { } p ? N(p, 4) : "-"),9}   {result}".TrimEnd());
+            var result = c.Passes switch { true => "pass", false => c.Valid ? "FAIL" : "FAIL (unstable)", null => string.Empty };
+            var measured = c.Valid ? Measured(c) : "-";
+            sb.AppendLine($"  {c.Name,-25} {measured,9}   {(c.Required is { } r ? c.BoundSymbol + " " + N(r, 4) : "-"),9}   {(c.Predicted is { } p ? N(p, 4) : "-"),9}   {result}".TrimEnd());
         }
 
         sb.AppendLine($"  final value {N(m.FinalValue, 6)}; steady-state error r − y: step {N(Clean(check.StepError), 4)}, ramp {N(check.RampError, 4)}");
         var k = check.ErrorConstants;
         sb.AppendLine($"  loop type {k.SystemType}; error constants Kp = {N(k.Kp, 5)}, Kv = {N(k.Kv, 5)}, Ka = {N(k.Ka, 5)}");
-        TextWrap.AppendTo(sb, "(predictions are the second-order figures of the target pole; rise time is measured 10–90 %)");
+        TextWrap.AppendTo(sb, "(predictions are the second-order figures of the target pole, not measurements; overshoot and undershoot are measured toward and away from the final value; rise time is 10–90 %; settling time is the last entry into the band; \"none\" means the response never overshoots)");
         sb.Append(StepStripRenderer.Render(check.Output, m.FinalValue, 78, 9, style));
+        if (check.TailContinues)
+        {
+            TextWrap.AppendTo(sb, $"(shown: the transient, 0–{N(check.ShownWindow, 3)} s; a slow tail continues to the simulated {N(m.Horizon, 4)} s, and the figures above include it)");
+        }
+
         sb.AppendLine();
 
-        sb.AppendLine("Margins (loop C·G·H, delays exact)");
+        sb.AppendLine("Margins (loop C·G·H, delays exact, over every crossover)");
         if (check.Margins is { } g)
         {
-            sb.AppendLine($"  gain margin   {Db(g.GainMarginDb)}{(double.IsFinite(g.GainMarginDb) ? $" at {N(g.PhaseCrossover, 4)} rad/s" : string.Empty)}{(double.IsFinite(g.GainReductionMarginDb) ? $"; gain may fall {N(g.GainReductionMarginDb, 3)} dB" : string.Empty)}");
-            sb.AppendLine($"  phase margin  {N(g.PhaseMarginDeg, 4)}° at {N(g.GainCrossover, 4)} rad/s; delay margin {N(g.DelayMargin, 4)} s");
-            sb.AppendLine($"  sensitivity peak Ms = {N(g.SensitivityPeak, 4)} at {N(g.SensitivityPeakFrequency, 4)} rad/s");
+            AppendMargins(sb, g);
         }
         else
         {
-            sb.AppendLine("  not claimed: the closed loop is unstable");
+            TextWrap.AppendTo(sb, $"none claimed: the closed loop is UNSTABLE ({check.UnstableRootCount} closed-loop root{(check.UnstableRootCount == 1 ? string.Empty : "s")} in the right half-plane or on the imaginary axis)");
         }
 
         sb.AppendLine();
@@ -51,15 +55,69 @@ public static class CheckTextSection
         if (robustness is not null)
         {
             sb.AppendLine($"Robustness ({string.Join(", ", robustness.Variations)}; {robustness.Corners.Length} corners)");
-            TextWrap.AppendTo(sb, $"every corner stable: {(robustness.AllStable ? "yes" : "NO")}; worst overshoot {N(robustness.WorstOvershootPercent, 4)} %, worst 2 % settling {N(robustness.WorstSettlingTime2Percent, 4)} s, least ζ {N(robustness.LeastDamping, 3)}");
+            TextWrap.AppendTo(sb, $"every corner stable: {(robustness.AllStable ? "yes" : "NO")}; every corner meets the requirements: {(robustness.AllMeet ? "yes" : "NO")}; worst overshoot {N(robustness.WorstOvershootPercent, 4)} %, worst 2 % settling {N(robustness.WorstSettlingTime2Percent, 4)} s, least ζ {N(robustness.LeastDamping, 3)}");
             foreach (var corner in robustness.Corners.Where(c => !c.Stable))
             {
-                sb.AppendLine($"  ! unstable at factors {string.Join(", ", corner.Factors.Select(f => N(f, 3)))}");
+                sb.AppendLine($"  ✗ unstable at {robustness.Describe(corner)}");
+            }
+
+            foreach (var (corner, row) in robustness.WorstFailures())
+            {
+                TextWrap.AppendTo(sb, $"✗ {row.Name} {N(row.Measured, 4)} against {row.BoundSymbol} {N(row.Required!.Value, 4)} at {robustness.Describe(corner)}");
             }
 
             sb.AppendLine();
         }
     }
+
+    private static void AppendMargins(StringBuilder sb, StabilityMargins g)
+    {
+        var up = double.IsFinite(g.GainMarginDb) ? $"{N(g.GainMarginDb, 4)} dB (×{N(Math.Pow(10, g.GainMarginDb / 20), 4)}) at {Frequency(g.PhaseCrossover)}" : "inf (no phase crossover with |L| < 1)";
+        sb.AppendLine($"  gain may rise  {up}");
+        if (double.IsFinite(g.GainReductionMarginDb))
+        {
+            TextWrap.AppendTo(sb, $"gain may fall  {N(g.GainReductionMarginDb, 4)} dB (×{N(Math.Pow(10, -g.GainReductionMarginDb / 20), 4)}) at {Frequency(g.GainReductionCrossover)}: with less gain the loop is unstable");
+        }
+
+        if (g.GainCrossings.Length == 0)
+        {
+            sb.AppendLine("  phase margin   inf (|L| never crosses 1); delay margin inf");
+        }
+        else
+        {
+            TextWrap.AppendTo(sb, $"phase margin   {N(g.PhaseMarginDeg, 4)}° at {N(g.GainCrossover, 4)} rad/s (the smallest angular distance from L to −1 over {g.GainCrossings.Length} gain crossover{(g.GainCrossings.Length == 1 ? string.Empty : "s")})");
+            TextWrap.AppendTo(sb, $"delay margin   {N(g.DelayMargin, 4)} s at {N(g.DelayMarginCrossover, 4)} rad/s (the smallest extra lag that reaches −180°, divided by ωc)");
+        }
+
+        if (g.GainCrossings.Length > 1)
+        {
+            foreach (var c in g.GainCrossings)
+            {
+                TextWrap.AppendTo(sb, $"crossover {N(c.Frequency, 4)} rad/s: ∠L {N(c.PhaseDegrees, 4)}°, 180° + ∠L = {N(c.SignedMarginDegrees, 4)}°, delay {N(c.DelayMargin, 4)} s", "    ", "      ");
+            }
+        }
+
+        sb.AppendLine($"  sensitivity peak Ms = {N(g.SensitivityPeak, 4)} at {N(g.SensitivityPeakFrequency, 4)} rad/s");
+    }
+
+    private static string Frequency(double w) => w == 0 ? "ω = 0 (DC)" : double.IsPositiveInfinity(w) ? "ω → inf" : $"{N(w, 4)} rad/s";
+
+    /// <summary>The verdict block: one status line and the reasons.</summary>
+    public static void AppendVerdict(StringBuilder sb, LoopVerdict verdict, RobustnessReport? robustness)
+    {
+        ArgumentNullException.ThrowIfNull(sb);
+        ArgumentNullException.ThrowIfNull(verdict);
+        sb.AppendLine($"Verdict: {verdict.Status(robustness?.Corners.Length ?? 0)}");
+        foreach (var reason in verdict.Reasons)
+        {
+            TextWrap.AppendTo(sb, "✗ " + reason);
+        }
+
+        sb.AppendLine();
+    }
+
+    private static string Measured(RequirementCheck c) =>
+        c.Name == RequirementChecks.PeakTime && double.IsPositiveInfinity(c.Measured) ? "none" : N(c.Measured, 4);
 
     private static double Clean(double x) => Math.Abs(x) < 1e-12 ? 0.0 : x;
 

@@ -206,6 +206,7 @@ public static class DesignJsonReport
         w.WriteEndObject();
 
         CheckJsonSection.Write(w, report.Check, report.Robustness);
+        CheckJsonSection.WriteVerdict(w, report.Verdict);
         w.WriteStartObject("locus");
         LocusReport.WriteFeatures(w, report.Locus);
         w.WriteEndObject();

@@ -123,10 +123,14 @@ public static class DesignTextReport
             ZetaGuide = target.Zeta,
             NaturalFrequencyGuide = target.NaturalFrequency,
         };
-        var view = PlaneView.Frame([target.Point, Complex.Conjugate(target.Point)], report.Locus.Poles.Concat(report.Locus.Zeros).Concat(proof.Roots.Select(r => r.Value)));
+        // Always framed: the target, and every closed-loop pole that is unstable or slower than the target.
+        var mustShow = new List<Complex> { target.Point, Complex.Conjugate(target.Point) };
+        mustShow.AddRange(proof.Roots.Select(r => r.Value).Where(r => r.Real >= 0 || r.Real > target.Point.Real));
+        var view = PlaneView.Frame(mustShow, report.Locus.Poles.Concat(report.Locus.Zeros).Concat(proof.Roots.Select(r => r.Value)));
         sb.Append(SPlaneRenderer.Render(scene, view, 78, 20, style));
         sb.AppendLine();
         CheckTextSection.Append(sb, report.Check, report.Robustness, style);
+        CheckTextSection.AppendVerdict(sb, report.Verdict, report.Robustness);
         var warnings = proof.Warnings.AddRange(report.Check.Warnings);
         if (warnings.Length > 0)
         {

@@ -19,14 +19,17 @@ public static class ProofDigest
         var items = ImmutableArray.CreateBuilder<DigestItem>();
         var proof = report.Proof;
         var check = report.Check;
-        items.Add(new DigestItem(proof.Stable ? "stable" : "UNSTABLE", proof.Stable));
+        var verdict = LoopVerdict.Of(check, robustness);
+        items.Add(new DigestItem(verdict.Meets ? "meets all" : "FAILS", verdict.Meets));
+        items.Add(new DigestItem(proof.Stable ? "stable" : $"UNSTABLE ({check.UnstableRootCount} RHP)", proof.Stable));
         items.Add(new DigestItem(proof.TargetConfirmed ? "s* is a root" : "s* NOT a root", proof.TargetConfirmed));
         foreach (var c in check.Checks.Where(c => c.Required is not null))
         {
-            items.Add(new DigestItem($"{Short(c.Name)} {N(c.Measured, 3)} ≤ {N(c.Required!.Value, 3)}", c.Passes));
+            var measured = c.Valid ? (c.Name == RequirementChecks.PeakTime && double.IsPositiveInfinity(c.Measured) ? "none" : N(c.Measured, 3)) : "-";
+            items.Add(new DigestItem($"{Short(c.Name)} {measured} {c.BoundSymbol} {N(c.Required!.Value, 3)}", c.Passes));
         }
 
-        if (check.Checks.FirstOrDefault(c => c.Name.StartsWith("overshoot", StringComparison.Ordinal)) is { Required: null } os)
+        if (check.Checks.FirstOrDefault(c => c.Name == RequirementChecks.Overshoot) is { Required: null } os && check.Stable)
         {
             items.Add(new DigestItem($"OS {N(os.Measured, 3)}%", null));
         }
@@ -34,14 +37,16 @@ public static class ProofDigest
         if (check.Margins is { } m)
         {
             items.Add(new DigestItem($"PM {N(m.PhaseMarginDeg, 3)}°", m.PhaseMarginDeg >= 30 ? null : false));
-            items.Add(new DigestItem(double.IsPositiveInfinity(m.GainMarginDb) ? "GM ∞" : $"GM {N(m.GainMarginDb, 3)} dB", null));
+            items.Add(new DigestItem(double.IsPositiveInfinity(m.GainMarginDb) ? "GM inf" : $"GM {N(m.GainMarginDb, 3)} dB", null));
         }
 
         var e = check.EffortFigures;
-        items.Add(e.Limit is { } limit
-            ? new DigestItem($"|u| {N(e.Peak, 3)} ≤ {N(limit, 3)}", !e.Saturates)
-            : new DigestItem($"|u| peak {N(e.Peak, 3)}", null));
-        if (report.Design.SteadyState is { } steady)
+        if (e.Limit is null)
+        {
+            items.Add(new DigestItem($"|u| peak {N(e.Peak, 3)}", null));
+        }
+
+        if (report.Design.SteadyState is { } steady && !check.Checks.Any(c => c.Name.StartsWith("error constant", StringComparison.Ordinal)))
         {
             items.Add(new DigestItem($"{steady.Requirement.Symbol} {N(steady.After, 3)} ≥ {N(steady.Requirement.Value, 3)}", steady.Met));
         }
@@ -49,7 +54,8 @@ public static class ProofDigest
         if (robustness is not null)
         {
             var stable = robustness.Corners.Count(c => c.Stable);
-            items.Add(new DigestItem($"robust {stable}/{robustness.Corners.Length} stable, worst OS {N(robustness.WorstOvershootPercent, 3)}%", robustness.AllStable));
+            var meet = robustness.Corners.Count(c => c.Meets);
+            items.Add(new DigestItem($"robust {stable}/{robustness.Corners.Length} stable, {meet}/{robustness.Corners.Length} meet, worst OS {N(robustness.WorstOvershootPercent, 3)}%", robustness.AllMeet));
         }
         else if (sweepNote is not null)
         {
@@ -65,6 +71,8 @@ public static class ProofDigest
         _ when name.StartsWith("settling time 2", StringComparison.Ordinal) => "ts2%",
         _ when name.StartsWith("settling time 5", StringComparison.Ordinal) => "ts5%",
         _ when name.StartsWith("peak time", StringComparison.Ordinal) => "tp",
+        RequirementChecks.ActuatorPeak => "|u|",
+        _ when name.StartsWith("error constant ", StringComparison.Ordinal) => name["error constant ".Length..],
         _ => name,
     };
 

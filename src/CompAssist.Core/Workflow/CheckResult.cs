@@ -19,4 +19,8 @@ public sealed record CheckResult(
     ImmutableArray<Complex> ClosedLoopPoles,
     TargetSelection? Selection,
     LoopCheckReport Check,
-    RobustnessReport? Robustness);
+    RobustnessReport? Robustness)
+{
+    /// <summary>The proof's verdict: stable, and every requirement holds nominally and at every corner.</summary>
+    public LoopVerdict Verdict => LoopVerdict.Of(Check, Robustness);
+}

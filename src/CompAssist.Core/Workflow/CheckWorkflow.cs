@@ -36,7 +36,7 @@ public static class CheckWorkflow
             RobustnessReport? robustness = null;
             if (!input.Variations.IsEmpty)
             {
-                var sweep = RobustnessSweep.Run(loop, c, input.Variations, input.Check.Intervals);
+                var sweep = RobustnessSweep.Run(loop, c, input.Variations, input.Requirements);
                 if (!sweep.IsSuccess)
                 {
                     return CheckRun.Failed(sweep.Problem);

@@ -12,4 +12,8 @@ namespace CompAssist.Core.Workflow;
 /// <param name="Check">What the loop does: simulated step, errors, margins, effort.</param>
 /// <param name="Robustness">The plant-variation sweep, when variations were given.</param>
 /// <param name="Locus">The root locus of the compensated loop C·G·H (its gain factor K = 1 is the design).</param>
-public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness, LocusResult Locus);
+public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness, LocusResult Locus)
+{
+    /// <summary>The proof's verdict: stable, and every requirement holds nominally and at every corner.</summary>
+    public LoopVerdict Verdict => LoopVerdict.Of(Check, Robustness);
+}

@@ -102,7 +102,7 @@ public static class DesignWorkflow
             RobustnessReport? robustness = null;
             if (!input.Variations.IsEmpty)
             {
-                var sweep = RobustnessSweep.Run(loop, compensator, input.Variations, input.Check.Intervals);
+                var sweep = RobustnessSweep.Run(loop, compensator, input.Variations, input.Requirements);
                 if (!sweep.IsSuccess)
                 {
                     return DesignRun.Failed(sweep.Problem);

@@ -39,7 +39,8 @@ public class CheckCommandTests
     public void Check_Text_ShowsStepMarginsAndCaution()
     {
         var (code, output, _) = CliRunner.Run("check", "--plant", "4/(s(s+2))", "--compensator", "4.7(s+2.93)/(s+5.46)", "--overshoot", "20", "--settling", "2");
-        Assert.Equal(0, code);
+        Assert.Equal(4, code);
+        Assert.Contains("Verdict: FAILS", output, StringComparison.Ordinal);
         Assert.Contains("Simulated unit step", output, StringComparison.Ordinal);
         Assert.Contains("phase margin", output, StringComparison.Ordinal);
         Assert.Contains("FAIL", output, StringComparison.Ordinal);
@@ -51,7 +52,7 @@ public class CheckCommandTests
     {
         // K/(s(s+1)(s+2)) with K = 5 ± 30 %: the upper corner exceeds the Routh limit K = 6.
         var (code, output, _) = CliRunner.Run("check", "--plant", "5/(s(s+1)(s+2))", "--compensator", "1", "--vary", "gain=30%", "--json");
-        Assert.Equal(0, code);
+        Assert.Equal(4, code);
         using var doc = JsonDocument.Parse(output);
         var robustness = doc.RootElement.GetProperty("check").GetProperty("robustness");
         Assert.False(robustness.GetProperty("allStable").GetBoolean());
@@ -62,10 +63,13 @@ public class CheckCommandTests
     public void Check_UnstableLoop_MarginsNull()
     {
         var (code, output, _) = CliRunner.Run("check", "--plant", "1/(s(s+1)(s+2))", "--compensator", "10", "--json");
-        Assert.Equal(0, code);
+        Assert.Equal(4, code);
         using var doc = JsonDocument.Parse(output);
         Assert.False(doc.RootElement.GetProperty("check").GetProperty("stable").GetBoolean());
         Assert.Equal(JsonValueKind.Null, doc.RootElement.GetProperty("check").GetProperty("margins").ValueKind);
+        Assert.Equal(2, doc.RootElement.GetProperty("check").GetProperty("unstableRoots").GetInt32());
+        Assert.Equal("unstable", doc.RootElement.GetProperty("verdict").GetProperty("status").GetString());
+        Assert.All(doc.RootElement.GetProperty("check").GetProperty("requirements").EnumerateArray(), r => Assert.False(r.TryGetProperty("passes", out var p) && p.GetBoolean()));
     }
 
     public static TheoryData<string[], int, string> BadCommandLines() => new()

@@ -24,7 +24,7 @@ public class HandoffCommandTests
         {
             var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
             var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.005", "--name", "belt_axis");
-            Assert.True(code == 0, error + output);
+            Assert.True(code == 0 ? output.Contains("continuous loop: MEETS", StringComparison.Ordinal) : code == 4 && output.Contains("FAILS", StringComparison.Ordinal), error + output);
             foreach (var name in new[] { "belt_axis.h", "belt_axis.c", "belt_axis.json", "belt_axis-vectors.csv", "belt_axis-report.md", "belt_axis-step.svg", "belt_axis-poles.svg" })
             {
                 Assert.True(File.Exists(Path.Combine(folder, name)), name);
@@ -81,7 +81,7 @@ public class HandoffCommandTests
         {
             var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "heater-stage.toml");
             var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--name", "heater", "--anti-windup", "back-calculation");
-            Assert.True(code == 0, error + output);
+            Assert.True(code == 0 ? output.Contains("continuous loop: MEETS", StringComparison.Ordinal) : code == 4 && output.Contains("FAILS", StringComparison.Ordinal), error + output);
             Assert.Contains("anti-windup: BackCalculation", File.ReadAllText(Path.Combine(folder, "heater_pid.h")), StringComparison.Ordinal);
             var rows = File.ReadAllLines(Path.Combine(folder, "heater_pid-vectors.csv")).Where(l => char.IsAsciiDigit(l[0])).Select(l => double.Parse(l.Split(',')[3], CultureInfo.InvariantCulture)).ToList();
             Assert.Equal(400, rows.Count);
@@ -101,7 +101,7 @@ public class HandoffCommandTests
         {
             var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
             var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.001", "--format", "fixed16", "--name", "belt");
-            Assert.True(code is 0 or 3, error);
+            Assert.True(code is 0 or 4, error);
             Assert.Contains("fixed16: quantization analysed", output, StringComparison.Ordinal);
             Assert.Contains("int64_t", File.ReadAllText(Path.Combine(folder, "belt.c")), StringComparison.Ordinal);
             Assert.Contains("saturating,0,32767,", File.ReadAllText(Path.Combine(folder, "belt-vectors.csv")), StringComparison.Ordinal);

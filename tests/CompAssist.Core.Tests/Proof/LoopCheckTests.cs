@@ -58,7 +58,8 @@ public class LoopCheckTests
         var report = LoopCheck.Run(Loop.Create(FromText("1/(s(s+1)(s+2))")), FromText("10"), new CheckOptions());
         Assert.False(report.Stable);
         Assert.Null(report.Margins);
-        Assert.Contains(report.Warnings, w => w.StartsWith("The closed loop is unstable", StringComparison.Ordinal));
+        Assert.Contains(report.Warnings, w => w.StartsWith("The closed loop is UNSTABLE: 2 closed-loop roots", StringComparison.Ordinal));
+        Assert.Equal(2, report.UnstableRootCount);
     }
 
     [Fact]
@@ -67,7 +68,7 @@ public class LoopCheckTests
         // A near pole–zero pair at −0.05/−0.055 leaves a slow tail; the horizon must follow the slowest pole.
         var loop = Loop.Create(FromText("4/(s(s+2))"));
         var report = LoopCheck.Run(loop, FromText("4(s+0.055)/(s+0.05)"), new CheckOptions());
-        var slowest = report.Output.Horizon;
+        var slowest = report.Step.Horizon;
         Assert.True(slowest > 8.0 / 0.06, $"horizon {slowest}");
     }
 }

@@ -1,0 +1,210 @@
+using System.Numerics;
+using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
+using CompAssist.Core.Parsing;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Tests.Support;
+
+namespace CompAssist.Core.Tests.Proof;
+
+/// <summary>
+/// Margins over every crossover, checked by different routes: a dense frequency sweep of L(jω) evaluated by
+/// Horner's rule on the expanded numerator and denominator (not the product form the analyzer uses), closed
+/// forms, and closed-loop roots (a gain scaled by a reported gain margin must put a root on the imaginary
+/// axis). Margin definitions from the Nyquist criterion as in Franklin, Powell and Emami-Naeini, Feedback
+/// Control of Dynamic Systems, ch. 6; the delay margin as common practice (extra lag to −180° over ωc).
+/// </summary>
+public class MarginCrossoverTests
+{
+    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+
+    /// <summary>L(jω) by Horner on expanded coefficients, sign folded in.</summary>
+    private static Complex Horner(Loop loop, TransferFunction c, double w)
+    {
+        var open = loop.OpenLoop(c).Scaled(loop.SignFactor);
+        var s = new Complex(0, w);
+        return open.Numerator.Evaluate(s) / open.Denominator.Evaluate(s) * Complex.Exp(-s * open.Delay);
+    }
+
+    /// <summary>Every ω where |L| = 1, by a dense log sweep (2·10⁵ points) and bisection on the Horner value.</summary>
+    private static List<double> DenseGainCrossings(Func<double, Complex> l, double lo, double hi)
+    {
+        const int n = 200_000;
+        var found = new List<double>();
+        double Log(double w) => Math.Log(Complex.Abs(l(w)));
+        var prevW = lo;
+        var prev = Log(lo);
+        for (var i = 1; i <= n; i++)
+        {
+            var w = lo * Math.Pow(hi / lo, (double)i / n);
+            var v = Log(w);
+            if (Math.Sign(v) != Math.Sign(prev))
+            {
+                double a = prevW, b = w, fa = prev;
+                for (var k = 0; k < 200 && b - a > 1e-15 * b; k++)
+                {
+                    var m = 0.5 * (a + b);
+                    var fm = Log(m);
+                    if (Math.Sign(fm) == Math.Sign(fa))
+                    {
+                        (a, fa) = (m, fm);
+                    }
+                    else
+                    {
+                        b = m;
+                    }
+                }
+
+                found.Add(0.5 * (a + b));
+            }
+
+            (prevW, prev) = (w, v);
+        }
+
+        return found;
+    }
+
+    private static void AssertRootOnAxisAtGain(Loop loop, TransferFunction c, double factor, double omega)
+    {
+        var roots = RootFinder.Find(loop.Characteristic(c.Scaled(factor))).Roots;
+        var nearest = roots.MinBy(r => Complex.Abs(r - new Complex(0, omega)));
+        Assert.True(Complex.Abs(nearest - new Complex(0, omega)) <= 1e-6 * Math.Max(1.0, omega), $"gain ×{factor:G6}: nearest root {nearest} to j{omega:G6}");
+    }
+
+    [Fact]
+    public void Analyze_LightlyDampedModeUnderTwoLeadStages_EveryCrossoverMatchesDenseSweep()
+    {
+        // A ζ = 0.02 mode at 10 rad/s lifts |L| above 1 again beside the resonance: three gain crossovers. The
+        // loop is stable (closed-loop roots), so the smallest distance to −1 is the one beside the resonance.
+        var loop = Loop.Create(Tf("100/(s(s+1)(s^2+0.4s+100))"));
+        var c = Tf("6(s+0.5)(s+0.7)/((s+5)(s+7))");
+        Assert.All(RootFinder.Find(loop.Characteristic(c)).Roots, r => Assert.True(r.Real < 0));
+        var m = MarginAnalyzer.Analyze(loop, c);
+
+        var dense = DenseGainCrossings(w => Horner(loop, c, w), 1e-3, 1e3);
+        Assert.Equal(3, dense.Count);
+        Assert.Equal(dense.Count, m.GainCrossings.Length);
+        for (var i = 0; i < dense.Count; i++)
+        {
+            Tolerance.Close(dense[i], m.GainCrossings[i].Frequency, 1e-9);
+            var l = Horner(loop, c, dense[i]);
+            var signed = 180 + (Math.Atan2(l.Imaginary, l.Real) * 180 / Math.PI);
+            signed = signed > 180 ? signed - 360 : signed;
+            Tolerance.Close(signed, m.GainCrossings[i].SignedMarginDegrees, 0, 1e-6, $"crossover {i}");
+            var lag = (signed < 0 ? signed + 360 : signed) * Math.PI / 180;
+            Tolerance.Close(lag / dense[i], m.GainCrossings[i].DelayMargin, 1e-8, 0, $"delay {i}");
+        }
+
+        Tolerance.Close(m.GainCrossings.Min(g => Math.Abs(g.SignedMarginDegrees)), m.PhaseMarginDeg, 1e-12);
+        Assert.True(m.PhaseMarginDeg < 5, $"PM {m.PhaseMarginDeg}");
+        Tolerance.Close(m.GainCrossings.Min(g => g.DelayMargin), m.DelayMargin, 1e-12);
+        Assert.True(m.DelayMargin > 0);
+
+        // The delay margin with the exact delay angle puts L on −1 at its crossover.
+        var atMargin = Horner(loop, c, m.DelayMarginCrossover) * Complex.Exp(new Complex(0, -m.DelayMarginCrossover * m.DelayMargin));
+        Assert.True(Complex.Abs(1 + atMargin) < 1e-6, $"|1 + L e^(-jωτ)| = {Complex.Abs(1 + atMargin):G3}");
+
+        // The upward gain margin puts a closed-loop root on the imaginary axis at its phase crossover.
+        AssertRootOnAxisAtGain(loop, c, Math.Pow(10, m.GainMarginDb / 20), m.PhaseCrossover);
+        Assert.True(m.SelfCheckResidual < 1e-9, $"self-check {m.SelfCheckResidual:G3}");
+    }
+
+    [Fact]
+    public void Analyze_OpenLoopUnstablePlant_DownwardMarginAtDc()
+    {
+        // L = 4/(s − 1): stable closed loop (root −3); L(0) = −4 is real and negative, so ω = 0 is a phase
+        // crossover and the gain may fall by 20·log10 4 before the root reaches s = 0. The gain crossover is
+        // at √15 with 180° + ∠L = atan √15 (closed forms).
+        var loop = Loop.Create(Tf("4/(s-1)"));
+        var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
+        Tolerance.Close(20 * Math.Log10(4), m.GainReductionMarginDb, 1e-12);
+        Assert.Equal(0.0, m.GainReductionCrossover);
+        Assert.True(double.IsPositiveInfinity(m.GainMarginDb));
+        Tolerance.Close(Math.Sqrt(15), m.GainCrossover, 1e-10);
+        Tolerance.Close(Math.Atan(Math.Sqrt(15)) * 180 / Math.PI, m.PhaseMarginDeg, 1e-9);
+        Tolerance.Close(Math.Atan(Math.Sqrt(15)) / Math.Sqrt(15), m.DelayMargin, 1e-9);
+        AssertRootOnAxisAtGain(loop, TransferFunction.Unity, Math.Pow(10, -m.GainReductionMarginDb / 20), 0.0);
+    }
+
+    [Fact]
+    public void Analyze_UnstablePoleWithLead_BothDirectionsCloseOnTheAxis()
+    {
+        // An unstable plant with a lead: the gain may rise (phase crossover at high frequency) and may fall
+        // (at DC); each factor puts a closed-loop root on the imaginary axis where the margin says.
+        var loop = Loop.Create(Tf("1/((s-1)(s+4))"));
+        var c = Tf("30(s+2)/(s+12)");
+        Assert.All(RootFinder.Find(loop.Characteristic(c)).Roots, r => Assert.True(r.Real < 0));
+        var m = MarginAnalyzer.Analyze(loop, c);
+        Assert.True(double.IsFinite(m.GainReductionMarginDb), "downward margin");
+        AssertRootOnAxisAtGain(loop, c, Math.Pow(10, -m.GainReductionMarginDb / 20), m.GainReductionCrossover);
+        if (double.IsFinite(m.GainMarginDb))
+        {
+            AssertRootOnAxisAtGain(loop, c, Math.Pow(10, m.GainMarginDb / 20), m.PhaseCrossover);
+        }
+    }
+
+    [Fact]
+    public void Analyze_InvertingPlantWithPositiveFeedback_ClosedFormPhaseMargin()
+    {
+        // G = −4/(s(s+2)) with positive feedback is the loop L = 4/(s(s+2)): ωc² = −2 + √20 and
+        // 180° + ∠L = 90° − atan(ωc/2) (closed form).
+        var loop = Loop.Create(Tf("-4/(s(s+2))"), null, FeedbackSign.Positive);
+        var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
+        var wc = Math.Sqrt(-2 + Math.Sqrt(20));
+        Tolerance.Close(wc, m.GainCrossover, 1e-10);
+        Tolerance.Close(90 - (Math.Atan(wc / 2) * 180 / Math.PI), m.PhaseMarginDeg, 1e-9);
+        Assert.Single(m.GainCrossings);
+    }
+
+    [Fact]
+    public void Analyze_RandomStableLoops_GainAndDelayMarginsCloseOnTheAxis()
+    {
+        // Property: for random stable loops of order 2–12, each finite gain margin (either direction) puts a
+        // closed-loop root on the imaginary axis at its phase crossover (by root finding), and the delay margin
+        // with the exact delay angle puts L on −1 at its crossover (by Horner evaluation).
+        var rng = new Random(20261202);
+        var proved = 0;
+        for (var trial = 0; trial < 400 && proved < 150; trial++)
+        {
+            var order = rng.Next(2, 13);
+            var poles = RandomRoots.Stable(rng, order, 0.2, 40, 0.05);
+            if (rng.NextDouble() < 0.4)
+            {
+                poles[0] = Complex.Zero;
+            }
+
+            var zeros = RandomRoots.Stable(rng, rng.Next(0, order), 0.3, 30, 0.05);
+            var plant = TransferFunction.FromFactors(1.0, zeros, poles);
+            var loop = Loop.Create(plant);
+            var gain = Math.Pow(10, (rng.NextDouble() * 4) - 2) / Math.Abs(plant.Evaluate(new Complex(0, poles.Where(p => p != Complex.Zero).DefaultIfEmpty(Complex.One).Min(p => p.Magnitude))));
+            var c = TransferFunction.Constant(gain);
+            var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
+            if (roots.Any(r => r.Real >= 0))
+            {
+                continue;
+            }
+
+            var m = MarginAnalyzer.Analyze(loop, c);
+            if (double.IsFinite(m.GainMarginDb) && m.PhaseCrossover is > 0 and < 1e6)
+            {
+                AssertRootOnAxisAtGain(loop, c, Math.Pow(10, m.GainMarginDb / 20), m.PhaseCrossover);
+            }
+
+            if (double.IsFinite(m.GainReductionMarginDb) && m.GainReductionCrossover < 1e6)
+            {
+                AssertRootOnAxisAtGain(loop, c, Math.Pow(10, -m.GainReductionMarginDb / 20), m.GainReductionCrossover);
+            }
+
+            if (double.IsFinite(m.DelayMargin))
+            {
+                var l = Horner(loop, c, m.DelayMarginCrossover) * Complex.Exp(new Complex(0, -m.DelayMarginCrossover * m.DelayMargin));
+                Assert.True(Complex.Abs(1 + l) < 1e-6, $"order {order}: |1 + L e^(-jωτ)| = {Complex.Abs(1 + l):G3}");
+            }
+
+            Assert.True(m.SelfCheckResidual < 1e-6, $"self-check {m.SelfCheckResidual:G3}");
+            proved++;
+        }
+
+        Assert.True(proved >= 100, $"only {proved} stable loops checked");
+    }
+}
