@@ -170,13 +170,13 @@ public class MarginCrossoverTests
             var poles = RandomRoots.Stable(rng, order, 0.2, 40, 0.05);
             if (rng.NextDouble() < 0.4)
             {
-                poles[0] = Complex.Zero;
+                poles.Add(Complex.Zero);
             }
 
             var zeros = RandomRoots.Stable(rng, rng.Next(0, order), 0.3, 30, 0.05);
             var plant = TransferFunction.FromFactors(1.0, zeros, poles);
             var loop = Loop.Create(plant);
-            var gain = Math.Pow(10, (rng.NextDouble() * 4) - 2) / Math.Abs(plant.Evaluate(new Complex(0, poles.Where(p => p != Complex.Zero).DefaultIfEmpty(Complex.One).Min(p => p.Magnitude))));
+            var gain = Math.Pow(10, (rng.NextDouble() * 4) - 2) / Complex.Abs(plant.Evaluate(new Complex(0, poles.Where(p => p != Complex.Zero).DefaultIfEmpty(Complex.One).Min(p => p.Magnitude))));
             var c = TransferFunction.Constant(gain);
             var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
             if (roots.Any(r => r.Real >= 0))

@@ -8,6 +8,11 @@ internal static class Tolerance
     /// <summary>Asserts |actual − expected| ≤ max(absolute, relative·|expected|).</summary>
     public static void Close(double expected, double actual, double relative = 1e-12, double absolute = 0.0, string what = "")
     {
+        if (expected.Equals(actual))
+        {
+            return; // equal, infinities and NaN included
+        }
+
         var allowed = Math.Max(absolute, relative * Math.Abs(expected));
         var error = Math.Abs(actual - expected);
         Assert.True(
