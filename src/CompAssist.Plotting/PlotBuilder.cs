@@ -101,7 +101,7 @@ public static class PlotBuilder
     private static PlotModel Locus(PlotInput input)
     {
         var model = NewModel(Title(input, "Root locus"), $"C·G·H = {input.Loop.OpenLoop(input.Compensator)}" + (input.Locus.Approximate ? "  (delay by Padé)" : string.Empty));
-        var focus = input.Target is { } t ? new[] { t, Complex.Conjugate(t) } : input.ClosedLoopPoles.ToArray();
+        var focus = input.Target is { } t ? PlaneView.MustShow(t, input.ClosedLoopPoles).ToArray() : input.ClosedLoopPoles.ToArray();
         var view = PlaneView.Frame(focus, input.Locus.Poles.Concat(input.Locus.Zeros).Concat(input.ClosedLoopPoles));
         PlaneAxes(model, view);
         var first = true;

@@ -279,5 +279,5 @@ public static class Discretizer
         return Math.Min(w, 0.9 * Math.PI / t);
     }
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 }

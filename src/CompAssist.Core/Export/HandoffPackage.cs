@@ -324,6 +324,14 @@ public sealed record HandoffPackage(
         sb.AppendLine();
         sb.AppendLine("> **Caution.** " + Cautions.Text);
         sb.AppendLine();
+        var verdict = report.Verdict;
+        sb.AppendLine(CultureInfo.InvariantCulture, $"**Verdict of the continuous proof:** {verdict.Status(report.Robustness?.Corners.Length ?? 0)}.");
+        foreach (var reason in verdict.Reasons)
+        {
+            sb.AppendLine(CultureInfo.InvariantCulture, $"- ✗ {reason}");
+        }
+
+        sb.AppendLine();
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Source design: {origin}");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Sample time: {F(d.SampleTime)} s ({note})");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Method: {DiscreteReport.MethodName(discrete.Method)} ({discrete.GainMatching}); computation delay {(options.ComputationDelay ? "one sample" : "none")}");

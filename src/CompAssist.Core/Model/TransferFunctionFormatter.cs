@@ -20,6 +20,11 @@ public static class TransferFunctionFormatter
             return "-inf";
         }
 
+        if (double.IsNaN(x))
+        {
+            return "n/a";
+        }
+
         if (x == 0.0)
         {
             return "0";

@@ -30,6 +30,22 @@ public sealed record PlaneView(double Left, double Right, double ImaginaryHalfHe
         return new PlaneView(left, right, height);
     }
 
+    /// <summary>
+    /// The points a picture of a design must always show: the target pair, and every closed-loop pole that is
+    /// unstable (on or right of the imaginary axis) or decays slower than the target.
+    /// </summary>
+    public static IEnumerable<Complex> MustShow(Complex? target, IEnumerable<Complex> closedLoopPoles)
+    {
+        ArgumentNullException.ThrowIfNull(closedLoopPoles);
+        var poles = closedLoopPoles.Where(IsFinite).ToList();
+        if (target is not { } t)
+        {
+            return poles.Where(p => p.Real >= 0);
+        }
+
+        return new[] { t, Complex.Conjugate(t) }.Concat(poles.Where(p => p.Real >= 0 || p.Real > t.Real));
+    }
+
     /// <summary>The same view zoomed about its centre (factor &gt; 1 zooms in).</summary>
     public PlaneView Zoomed(double factor)
     {

@@ -196,5 +196,5 @@ public static class LoopCheck
         return new EffortFigures(u.D * scale, peak * Math.Abs(scale), time, scale, options.ActuatorLimit);
     }
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 }

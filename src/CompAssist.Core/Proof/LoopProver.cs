@@ -83,7 +83,7 @@ public static class LoopProver
             warnings.Add($"Dominance ratio {F(dominance)} < {F(LoopProof.DominanceRule)}: the nearest other pole is close enough to change the response; trust the simulated step, not the second-order prediction.");
         }
 
-        foreach (var z in unmatchedZeros.Where(z => z.Imaginary >= 0 && Math.Abs(z.Real) < LoopProof.DominanceRule * target.Sigma))
+        foreach (var z in unmatchedZeros.Where(z => z.Imaginary >= 0 && Math.Abs(z.Real) < LoopProof.DominanceRule * target.Sigma).Distinct())
         {
             warnings.Add(z.Real >= 0
                 ? $"A right-half-plane closed-loop zero at {TransferFunctionFormatter.Complex(z, 4)} makes the step start the wrong way (undershoot)."
@@ -130,5 +130,5 @@ public static class LoopProver
         return [.. d.Select(c => c / lead)];
     }
 
-    private static string F(double x) => x.ToString("G3", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 3);
 }

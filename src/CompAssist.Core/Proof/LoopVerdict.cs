@@ -1,5 +1,4 @@
 using System.Collections.Immutable;
-using System.Globalization;
 
 namespace CompAssist.Core.Proof;
 
@@ -81,5 +80,5 @@ public sealed record LoopVerdict(VerdictKind Kind, ImmutableArray<string> Reason
         return reasons.Count > 0 ? new LoopVerdict(VerdictKind.FailsAtCorner, reasons.ToImmutable()) : new LoopVerdict(VerdictKind.Meets, []);
     }
 
-    private static string F(double x) => double.IsPositiveInfinity(x) ? "inf" : x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => Model.TransferFunctionFormatter.Number(x, 4);
 }

@@ -123,5 +123,5 @@ public static class CheckTextSection
 
     private static string Db(double x) => double.IsPositiveInfinity(x) ? "inf (no phase crossover)" : N(x, 4) + " dB";
 
-    private static string N(double x, int digits) => double.IsNaN(x) ? "n/a" : TransferFunctionFormatter.Number(x, digits);
+    private static string N(double x, int digits) => TransferFunctionFormatter.Number(x, digits);
 }

@@ -41,7 +41,7 @@ public static class DesignTextReport
         sb.AppendLine($"  chosen as: {report.Selection.Source}");
         foreach (var c in report.Selection.Constraints)
         {
-            TextWrap.AppendTo(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
+            TextWrap.AppendTo(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(Math.Abs(c.Margin) <= 1e-9 * Math.Max(1.0, Math.Abs(c.Actual)) ? 0.0 : c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
         }
 
         var p = requested.Predict();
@@ -105,7 +105,7 @@ public static class DesignTextReport
             ? $"target confirmed as a closed-loop root: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away"
             : $"TARGET NOT CONFIRMED: relative residual {E(residual)}, nearest computed root {E(proof.TargetRootDistance)}·|s*| away", "  ", "    ");
         TextWrap.AppendTo(sb, $"roots verified: largest relative residual {E(proof.RootEvidence.MaxRelativeResidual)}, largest last Newton step {E(proof.RootEvidence.MaxRelativeStep)}", "  ", "    ");
-        sb.AppendLine($"  dominance ratio (slowest other pole's σ / target σ): {(double.IsPositiveInfinity(proof.DominanceRatio) ? "no other poles" : N(proof.DominanceRatio, 3))}");
+        sb.AppendLine($"  dominance ratio (slowest other pole's σ / target σ): {Dominance(proof.DominanceRatio)}");
         var zeros = proof.ClosedLoopZeros.Where(z => z.Imaginary >= 0).Select(Pair).ToList();
         sb.AppendLine($"  closed-loop zeros: {(zeros.Count == 0 ? "none" : string.Join(", ", zeros))}");
         sb.AppendLine($"  stable: {(proof.Stable ? "yes" : "NO")}");
@@ -124,8 +124,7 @@ public static class DesignTextReport
             NaturalFrequencyGuide = target.NaturalFrequency,
         };
         // Always framed: the target, and every closed-loop pole that is unstable or slower than the target.
-        var mustShow = new List<Complex> { target.Point, Complex.Conjugate(target.Point) };
-        mustShow.AddRange(proof.Roots.Select(r => r.Value).Where(r => r.Real >= 0 || r.Real > target.Point.Real));
+        var mustShow = PlaneView.MustShow(target.Point, proof.Roots.Select(r => r.Value));
         var view = PlaneView.Frame(mustShow, report.Locus.Poles.Concat(report.Locus.Zeros).Concat(proof.Roots.Select(r => r.Value)));
         sb.Append(SPlaneRenderer.Render(scene, view, 78, 20, style));
         sb.AppendLine();
@@ -153,6 +152,14 @@ public static class DesignTextReport
     private static string N(double x, int digits = 5) => TransferFunctionFormatter.Number(x, digits);
 
     private static string E(double x) => x.ToString("0.0E+0", CultureInfo.InvariantCulture);
+
+    private static string Dominance(double ratio) => ratio switch
+    {
+        double.PositiveInfinity => "no other poles",
+        <= 0 => "none: another closed-loop pole is unstable",
+        < 1 => $"{N(ratio, 3)} (another pole is slower than the target: the target pair does not dominate)",
+        _ => N(ratio, 3),
+    };
 
     private static string Signed(double x) => (x >= 0 ? "+" : string.Empty) + N(x, 3);
 }

@@ -76,5 +76,5 @@ public static class ProofDigest
         _ => name,
     };
 
-    private static string N(double x, int digits) => double.IsNaN(x) ? "n/a" : TransferFunctionFormatter.Number(x, digits);
+    private static string N(double x, int digits) => TransferFunctionFormatter.Number(x, digits);
 }

@@ -5,14 +5,14 @@ namespace CompAssist.Core.Simulation;
 /// <summary>
 /// The unit-step response of a realization, exact at every instant: the state is stepped by the exact
 /// transition (Φ, Γ) of the augmented-matrix exponential on a multi-resolution grid — fine at the start
-/// (a twentieth of the fastest pole's time constant), growing with t, never coarser than a third of a
+/// (a twentieth of the fastest pole's time constant), growing with t, never coarser than half a
 /// radian of any oscillation that is still alive — and any instant between samples is reached by one more
 /// exact transition from the sample before it. So the figures measured on it do not depend on a grid:
 /// a fast rise beside a slow tail is resolved as well as either alone.
 /// </summary>
 internal sealed class StepTrajectory
 {
-    private const int SamplesPerDoubling = 48;
+    private const int SamplesPerDoubling = 32;
     private readonly StateSpace _system;
     private readonly double[,] _a;
     private readonly double[] _b;
@@ -23,6 +23,7 @@ internal sealed class StepTrajectory
     private readonly List<double[]> _states = [];
     private readonly List<double> _y = [];
     private readonly List<double> _dy = [];
+    private List<(double[,] Phi, double[] Gamma, double H)> _levels = [];
 
     private StepTrajectory(StateSpace system)
     {
@@ -93,9 +94,9 @@ internal sealed class StepTrajectory
             var wanted = Math.Min(Math.Max(h0, t / SamplesPerDoubling), coarsest);
             foreach (var (decay, frequency) in oscillations)
             {
-                if (decay * t < 30.0)
+                if (decay * t < 18.0)
                 {
-                    wanted = Math.Min(wanted, 0.35 / frequency);
+                    wanted = Math.Min(wanted, 0.5 / frequency);
                 }
             }
 
@@ -116,6 +117,7 @@ internal sealed class StepTrajectory
             trajectory.Record(t, x);
         }
 
+        trajectory._levels = levels;
         return trajectory;
     }
 
@@ -128,13 +130,7 @@ internal sealed class StepTrajectory
             k = Math.Max(~k - 1, 0);
         }
 
-        var tau = t - _times[k];
-        var x = _states[k];
-        if (tau > 0)
-        {
-            var (phi, gamma) = StepSimulator.Discretize(_system, tau);
-            x = Apply(phi, gamma, x);
-        }
+        var x = Advance(_states[k], t - _times[k]);
 
         // ẋ = A x + B (unit input), y = C x + D, ẏ = C ẋ, ÿ = C A ẋ.
         var n = x.Length;
@@ -151,6 +147,85 @@ internal sealed class StepTrajectory
         }
 
         return (Dot(_c, x) + _system.D, Dot(_c, xdot), Dot(_ca, xdot));
+    }
+
+    /// <summary>
+    /// The state τ seconds after x, exactly: τ = Σ bⱼ·h₀·2ʲ + r with r &lt; h₀; the binary part by the stored
+    /// level transitions (the steps commute: constant input), the remainder by the Taylor series of the
+    /// transition, which converges fast because ‖A‖·r is small, summed until the terms vanish against the sum.
+    /// </summary>
+    private double[] Advance(double[] x, double tau)
+    {
+        if (!(tau > 0))
+        {
+            return x;
+        }
+
+        var h0 = _levels[0].H;
+        var units = Math.Floor(tau / h0);
+        var r = tau - (units * h0);
+        for (var j = 0; units > 0 && j < 62; j++)
+        {
+            var bit = Math.IEEERemainder(units, 2.0) != 0;
+            units = Math.Floor(units / 2.0);
+            if (bit)
+            {
+                while (j >= _levels.Count)
+                {
+                    _levels.Add(Doubled(_levels[^1]));
+                }
+
+                x = Apply(_levels[j].Phi, _levels[j].Gamma, x);
+            }
+        }
+
+        return r > 0 ? Taylor(x, r) : x;
+    }
+
+    private double[] Taylor(double[] x, double r)
+    {
+        // x(r) = x + Σₖ≥1 rᵏ/k!·Aᵏ⁻¹·(A x + B).
+        var n = x.Length;
+        var term = new double[n];
+        var next = new double[n];
+        var sum = (double[])x.Clone();
+        for (var i = 0; i < n; i++)
+        {
+            var v = _b[i];
+            for (var j = 0; j < n; j++)
+            {
+                v += _a[i, j] * x[j];
+            }
+
+            term[i] = r * v;
+            sum[i] += term[i];
+        }
+
+        for (var k = 2; k < 60; k++)
+        {
+            double size = 0, scale = 0;
+            for (var i = 0; i < n; i++)
+            {
+                var v = 0.0;
+                for (var j = 0; j < n; j++)
+                {
+                    v += _a[i, j] * term[j];
+                }
+
+                next[i] = v * r / k;
+                sum[i] += next[i];
+                size += Math.Abs(next[i]);
+                scale += Math.Abs(sum[i]);
+            }
+
+            (term, next) = (next, term);
+            if (size <= 1e-17 * scale || size == 0)
+            {
+                break;
+            }
+        }
+
+        return sum;
     }
 
     private void Record(double t, double[] x)
@@ -189,12 +264,19 @@ internal sealed class StepTrajectory
 
     private static double[] Apply(double[,] phi, double[] gamma, double[] x)
     {
+        // Φ of a cascade is block lower-triangular: stop each row at its last non-zero column.
         var n = x.Length;
         var next = new double[n];
         for (var i = 0; i < n; i++)
         {
             var sum = gamma[i];
-            for (var j = 0; j < n; j++)
+            var last = n - 1;
+            while (last > i && phi[i, last] == 0.0)
+            {
+                last--;
+            }
+
+            for (var j = 0; j <= last; j++)
             {
                 sum += phi[i, j] * x[j];
             }

@@ -403,7 +403,7 @@ public static class LeadDesigner
         return FixedZero(s, candidate.Real, phi, perStageDegrees, note);
     }
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 
     private sealed record PlacedStage(double Zero, double Pole, string Note);
 }

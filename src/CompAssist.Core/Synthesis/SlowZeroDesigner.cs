@@ -148,5 +148,5 @@ public static class SlowZeroDesigner
     public static TransferFunction Shape(ImmutableArray<CompensatorStage> stages) =>
         stages.IsEmpty ? TransferFunction.Unity : Compensator.FromStages(CompensatorKind.Lead, 1.0, stages).TransferFunction;
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 }

@@ -202,8 +202,8 @@ public static class Synthesizer
         var notes = ImmutableArray.CreateBuilder<string>();
         notes.Add($"The PD zero supplies the {F(uncompensated.AngleDeficiencyDegrees)}° the target needs.");
         notes.Add(slow.FilterRatio is { } n
-            ? $"Derivative filter pole at {F(stage.Value.Pole!.Value)} (N = {F(n)} times the zero), counted in the angle sum."
-            : "Ideal PD is improper: it kicks the actuator at every reference step and cannot be discretized as it is. Add a filter (--filter-ratio N, e.g. 10) before hand-off.");
+            ? $"Derivative filter pole at {F(stage.Value.Pole!.Value)} (filter pole/zero ratio {F(n)}: the pole sits {F(n)} times as far out as the zero), counted in the angle sum."
+            : "Ideal PD is improper: it kicks the actuator at every reference step and cannot be discretized as it is. Add a derivative filter (a filter ratio of about 10) before hand-off.");
         var design = Build(loop, target, uncompensated, CompensatorKind.PD, null, stages, gain, notes.ToImmutable(), null);
         return WithRequirementCheck(Outcome<Design>.Success(design), loop, requirement);
     }
@@ -273,8 +273,8 @@ public static class Synthesizer
             notes.Add($"{extraStages.Length} identical lead stage(s) (bisector) supply the remaining {F(needed - fromDerivative)}°; the PID gain forms describe the PID part, the lead stages follow it in cascade.");
         }
         notes.Add(slow.FilterRatio is { } n
-            ? $"Derivative filter pole at {F(derivative.Value.Pole!.Value)} (N = {F(n)}), counted in the angle sum."
-            : "Ideal PID is improper: it kicks the actuator at every reference step and cannot be discretized as it is. Add a filter (--filter-ratio N) before hand-off.");
+            ? $"Derivative filter pole at {F(derivative.Value.Pole!.Value)} (filter ratio {F(n)}: the pole sits {F(n)} times as far out as the PD zero; not the N of the standard form below), counted in the angle sum."
+            : "Ideal PID is improper: it kicks the actuator at every reference step and cannot be discretized as it is. Add a derivative filter (a filter ratio of about 10) before hand-off.");
         var design = Build(loop, target, uncompensated, CompensatorKind.PID, null, stages, gain, notes.ToImmutable(), null);
         return WithRequirementCheck(Outcome<Design>.Success(design), loop, requirement);
     }
@@ -365,5 +365,5 @@ public static class Synthesizer
         return null;
     }
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 }

@@ -1,3 +1,4 @@
+using CompAssist.Core.Model;
 using System.Collections.Immutable;
 using System.Globalization;
 using CompAssist.Core.Common;
@@ -138,5 +139,5 @@ public static class TargetSelector
         return null;
     }
 
-    private static string F(double x) => x.ToString("G4", CultureInfo.InvariantCulture);
+    private static string F(double x) => TransferFunctionFormatter.Number(x, 4);
 }

@@ -33,8 +33,9 @@ internal sealed class PlanePreview : View
     public void Show(SPlaneScene next, IEnumerable<Complex> context, bool reframe)
     {
         scene = next;
-        var focus = next.Target is { } t ? new[] { t, Complex.Conjugate(t) } : [];
-        if (reframe || frame is null || (next.Target is { } target && !Inside(frame, target)))
+        // Always framed: the target and every unstable or slower-than-target closed-loop pole.
+        var focus = PlaneView.MustShow(next.Target, next.ClosedLoopPoles).ToList();
+        if (reframe || frame is null || !focus.All(z => Inside(frame, z)))
         {
             frame = PlaneView.Frame(focus, context);
         }
