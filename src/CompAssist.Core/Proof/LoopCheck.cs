@@ -42,7 +42,8 @@ public static class LoopCheck
         var window = stable ? ShownWindow(measured, horizon) : horizon;
         var h = window / options.Intervals;
         var output = StepSimulator.Step(outputSystem, h, options.Intervals);
-        SampledResponse? effort = effortSystem is not null ? StepSimulator.Step(effortSystem, h, options.Intervals) : null;
+        var intervals = options.Intervals;
+        var effort = new Lazy<SampledResponse?>(() => effortSystem is not null ? StepSimulator.Step(effortSystem, h, intervals) : null);
         var metrics = measured with { SampleTime = h };
         var stepError = stable ? 1.0 - final : double.NaN;
         var rampError = stable ? RampError(transfers.Output, stepError) : double.NaN;
@@ -108,7 +109,7 @@ public static class LoopCheck
             Stable = stable,
             UnstableRootCount = unstableRoots,
             Output = output,
-            Effort = effort,
+            EffortResponse = effort,
             Step = metrics,
             ShownWindow = window,
             TailContinues = window < horizon,

@@ -21,8 +21,11 @@ public sealed record LoopCheckReport
     /// <summary>The output step response y(t) over the shown window, uniformly sampled for pictures.</summary>
     public required SampledResponse Output { get; init; }
 
-    /// <summary>The actuator command u(t) for a unit step (null when the compensator is improper).</summary>
-    public required SampledResponse? Effort { get; init; }
+    /// <summary>The actuator command u(t) for a unit step over the shown window, computed when first asked for (null when the compensator is improper).</summary>
+    public SampledResponse? Effort => EffortResponse.Value;
+
+    /// <summary>The lazily simulated actuator command behind <see cref="Effort"/> (pictures only; the figures come from the exact solution).</summary>
+    public required Lazy<SampledResponse?> EffortResponse { get; init; }
 
     /// <summary>Measured step figures on the exact solution over the whole horizon (final value from the closed-loop DC gain when stable).</summary>
     public required StepMetrics Step { get; init; }

@@ -17,10 +17,10 @@ namespace CompAssist.Core.Proof;
 public static class MarginAnalyzer
 {
     /// <summary>Base grid points per decade (before refinement).</summary>
-    public const int PointsPerDecade = 40;
+    public const int PointsPerDecade = 30;
 
-    private const double MaxPhaseStep = 0.2;
-    private const double MaxLogMagnitudeStep = 0.25;
+    private const double MaxPhaseStep = 0.25;
+    private const double MaxLogMagnitudeStep = 0.3;
     private const int MaxRefinementDepth = 16;
     private const int MaxGridPoints = 40_000;
 
@@ -177,7 +177,7 @@ public static class MarginAnalyzer
     /// <summary>
     /// The frequency grid: a log-spaced base over every corner (three decades beyond each side, and beyond
     /// 1/delay), points around each lightly damped pole and zero, then intervals halved (in ln ω) wherever the
-    /// phase moves more than 0.2 rad or ln|L| more than 0.25 between neighbours.
+    /// phase moves more than 0.25 rad or ln|L| more than 0.3 between neighbours.
     /// </summary>
     private static List<(double W, double LogMag, double Phase)> Grid(TransferFunction open)
     {

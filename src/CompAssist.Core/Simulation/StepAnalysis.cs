@@ -237,7 +237,43 @@ public static class StepAnalysis
             return a;
         }
 
-        return Newton(t => { var (y, dy, _) = tr.At(t); return (y - level, dy); }, a, b, fa, 0.5 * (a + b));
+        return Newton(t => { var (y, dy, _) = tr.At(t); return (y - level, dy); }, a, b, fa, HermiteGuess(tr, level, a, b));
+    }
+
+    /// <summary>Where the cubic Hermite interpolant crosses <paramref name="level"/> in [a, b] (a few bisections on the cubic): a start for Newton.</summary>
+    private static double HermiteGuess(StepTrajectory tr, double level, double a, double b)
+    {
+        var k = Math.Min(IndexAtOrBefore(tr, a), tr.Count - 2);
+        if (tr.Time(k + 1) < b * (1 - 1e-15))
+        {
+            return 0.5 * (a + b);
+        }
+
+        var t0 = tr.Time(k);
+        var h = tr.Time(k + 1) - t0;
+        double lo = (a - t0) / h, hi = (b - t0) / h;
+        var flo = Hermite(tr, k, lo) - level;
+        for (var i = 0; i < 40; i++)
+        {
+            var mid = 0.5 * (lo + hi);
+            var fm = Hermite(tr, k, mid) - level;
+            if (Math.Sign(fm) == Math.Sign(flo))
+            {
+                (lo, flo) = (mid, fm);
+            }
+            else
+            {
+                hi = mid;
+            }
+        }
+
+        return Math.Clamp(t0 + (0.5 * (lo + hi) * h), a, b);
+    }
+
+    private static int IndexAtOrBefore(StepTrajectory tr, double t)
+    {
+        var k = IndexOf(tr, t);
+        return k > 0 && tr.Time(k) > t ? k - 1 : k;
     }
 
     /// <summary>Solves dy/dt = 0 in interval k (or its neighbours when the slope does not change sign inside), near a guess.</summary>
