@@ -25,7 +25,7 @@ internal static class DesignCommand
             return code;
         }
 
-        var run = DesignWorkflow.Run(input);
+        var run = s.Run(parse, input);
         if (Errors.Report(run.FieldError, run.Problem, input.Plant is null, stderr) is { } failure)
         {
             return failure;
@@ -66,6 +66,13 @@ internal static class DesignCommand
         if (parse.GetValue(s.Type) is { } typeName && DesignWorkflow.KindOf(typeName) is null)
         {
             stderr.WriteLine($"error: --type '{typeName}' is not a compensator type. Use one of: {string.Join(", ", DesignWorkflow.SupportedTypes)}.");
+            code = CliApplication.InputError;
+            return null;
+        }
+
+        if (parse.GetValue(s.Objective) is { } objectiveName && Core.Search.SearchObjectiveNames.TryParse(objectiveName) is null)
+        {
+            stderr.WriteLine($"error: --objective '{objectiveName}' is not an objective. Use one of: {string.Join(", ", Core.Search.SearchObjectiveNames.All)}.");
             code = CliApplication.InputError;
             return null;
         }

@@ -29,12 +29,31 @@ internal sealed class DesignSettings
 
     public Option<bool> EqualFactor { get; } = new("--equal-factor") { Description = "Lead-lag: fix the gain from the error constant first and use one ratio for lead and lag." };
 
+    public Option<bool> Corner { get; } = new("--corner") { Description = "Design at the corner of the region (no search): the least aggressive target the second-order figures allow." };
+
+    public Option<string?> Objective { get; } = new("--objective") { Description = "What the search minimizes among the designs that meet: " + string.Join(", ", Core.Search.SearchObjectiveNames.All) + " (default least-hf-gain)." };
+
     public Option<string?> Save { get; } = new("--save") { Description = "Also save the case as used (flags included) to this TOML file, atomically." };
+
+    /// <summary>
+    /// The design the flags ask for: the search over the region (the default when the requirements span one),
+    /// or the corner design with <c>--corner</c>, an explicit target or ζ/ωn pair.
+    /// </summary>
+    public Core.Workflow.DesignRun Run(ParseResult parse, Core.Cases.CaseFile input)
+    {
+        if (parse.GetValue(Corner) || !Core.Workflow.DesignWorkflow.Searches(input))
+        {
+            return Core.Workflow.DesignWorkflow.Run(input);
+        }
+
+        var objective = parse.GetValue(Objective) is { } name ? Core.Search.SearchObjectiveNames.TryParse(name)!.Value : Core.Search.SearchObjective.HighFrequencyGain;
+        return Core.Workflow.DesignWorkflow.Search(input, new Core.Search.SearchOptions { Objective = objective });
+    }
 
     public void AddTo(Command command)
     {
         Loop.AddTo(command);
-        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Save })
+        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Corner, Objective, Save })
         {
             command.Options.Add(option);
         }

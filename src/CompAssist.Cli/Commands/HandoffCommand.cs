@@ -65,7 +65,7 @@ internal static class HandoffCommand
                 return code;
             }
 
-            var run = DesignWorkflow.Run(input);
+            var run = settings.Run(parse, input);
             if (Errors.Report(run.FieldError, run.Problem, input.Plant is null, stderr) is { } failure)
             {
                 return failure;

@@ -38,6 +38,16 @@ internal sealed class LoopSettings
 
     public Option<double?> PeakTime { get; } = new("--peak-time") { Description = "Largest peak time, s." };
 
+    public Option<double?> RiseTime { get; } = new("--rise-time") { Description = "Largest 10-90 % rise time, s (checked on the simulated loop)." };
+
+    public Option<double?> MinPhaseMargin { get; } = new("--min-phase-margin") { Description = "Smallest phase margin, degrees." };
+
+    public Option<double?> MinGainMargin { get; } = new("--min-gain-margin") { Description = "Smallest gain margin, dB (upward, and downward where the loop has one)." };
+
+    public Option<double?> MinDelayMargin { get; } = new("--min-delay-margin") { Description = "Smallest delay margin, s." };
+
+    public Option<double?> MaxSensitivity { get; } = new("--max-sensitivity") { Description = "Largest sensitivity peak Ms, e.g. 2 (6 dB)." };
+
     public Option<double?> Kp { get; } = new("--kp") { Description = "Smallest acceptable position constant Kp." };
 
     public Option<double?> Kv { get; } = new("--kv") { Description = "Smallest acceptable velocity constant Kv (1/s)." };
@@ -63,6 +73,7 @@ internal sealed class LoopSettings
     public IEnumerable<Option> Options =>
     [
         Plant, Feedback, PositiveFeedback, PadeOrder, Target, Zeta, Wn, Overshoot, Settling, Band, PeakTime,
+        RiseTime, MinPhaseMargin, MinGainMargin, MinDelayMargin, MaxSensitivity,
         Kp, Kv, Ka, StepError, RampError, ParabolaError,
         ActuatorLimit, ReferenceStep, Vary, Json, Ascii,
     ];
@@ -185,6 +196,22 @@ internal sealed class LoopSettings
                 MaxSettlingTime = settling ?? result.MaxSettlingTime,
                 MaxPeakTime = peak ?? result.MaxPeakTime,
             };
+        }
+
+        result = result with
+        {
+            MaxRiseTime = parse.GetValue(RiseTime) ?? result.MaxRiseTime,
+            MinPhaseMarginDegrees = parse.GetValue(MinPhaseMargin) ?? result.MinPhaseMarginDegrees,
+            MinGainMarginDb = parse.GetValue(MinGainMargin) ?? result.MinGainMarginDb,
+            MinDelayMargin = parse.GetValue(MinDelayMargin) ?? result.MinDelayMargin,
+            MaxSensitivityPeak = parse.GetValue(MaxSensitivity) ?? result.MaxSensitivityPeak,
+        };
+
+        if (RequirementRanges.Check(result) is { } outOfRange)
+        {
+            stderr.WriteLine($"error: {outOfRange.Message}.");
+            stderr.WriteLine($"hint: {outOfRange.Hint}");
+            return null;
         }
 
         var zeta = parse.GetValue(Zeta);

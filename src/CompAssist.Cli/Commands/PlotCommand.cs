@@ -63,7 +63,7 @@ internal static class PlotCommand
             }
             else
             {
-                var run = DesignWorkflow.Run(input);
+                var run = settings.Run(parse, input);
                 if (Errors.Report(run.FieldError, run.Problem, input.Plant is null, stderr) is { } failure)
                 {
                     return failure;

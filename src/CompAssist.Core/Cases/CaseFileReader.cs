@@ -56,7 +56,7 @@ public static partial class CaseFileReader
     {
         [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator", "check"],
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
-        ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
+        ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "rise_time", "phase_margin_deg", "gain_margin_db", "delay_margin", "sensitivity_peak", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
         ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio", "equal_factor"],
         ["check"] = ["reference_step", "actuator_limit", "vary"],
     };
@@ -264,6 +264,11 @@ public static partial class CaseFileReader
                     MaxSettlingTime = Number(req, "requirements", "settling_time"),
                     Band = band == 5 ? SettlingBand.FivePercent : SettlingBand.TwoPercent,
                     MaxPeakTime = Number(req, "requirements", "peak_time"),
+                    MaxRiseTime = Number(req, "requirements", "rise_time"),
+                    MinPhaseMarginDegrees = Number(req, "requirements", "phase_margin_deg"),
+                    MinGainMarginDb = Number(req, "requirements", "gain_margin_db"),
+                    MinDelayMargin = Number(req, "requirements", "delay_margin"),
+                    MaxSensitivityPeak = Number(req, "requirements", "sensitivity_peak"),
                     Zeta = Number(req, "requirements", "zeta"),
                     NaturalFrequency = Number(req, "requirements", "natural_frequency"),
                     Point = target,
@@ -288,7 +293,7 @@ public static partial class CaseFileReader
                 },
                 Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit },
                 Variations = variations.ToImmutable(),
-            } is var result && Error is null ? result : null;
+            } is var result && Error is null ? (RequirementRanges.Check(result.Requirements) is { } bad ? Fail($"[requirements] {bad.Message}", bad.Hint) : result) : null;
         }
 
         private TomlTable? Table(TomlTable root, string name)

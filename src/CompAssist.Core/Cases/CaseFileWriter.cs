@@ -35,6 +35,11 @@ public static class CaseFileWriter
         Optional(sb, "settling_time", r.MaxSettlingTime);
         sb.AppendLine($"settling_band = {(r.Band == SettlingBand.FivePercent ? 5 : 2)}");
         Optional(sb, "peak_time", r.MaxPeakTime);
+        Optional(sb, "rise_time", r.MaxRiseTime);
+        Optional(sb, "phase_margin_deg", r.MinPhaseMarginDegrees);
+        Optional(sb, "gain_margin_db", r.MinGainMarginDb);
+        Optional(sb, "delay_margin", r.MinDelayMargin);
+        Optional(sb, "sensitivity_peak", r.MaxSensitivityPeak);
         Optional(sb, "zeta", r.Zeta);
         Optional(sb, "natural_frequency", r.NaturalFrequency);
         if (r.Point is { } p)

@@ -86,7 +86,7 @@ public static class LoopCheck
         }
 
         var prediction = target?.Predict();
-        var checks = RequirementChecks.Of(metrics, stable, requirements, prediction, constants, effortFigures);
+        var checks = RequirementChecks.Of(metrics, stable, requirements, prediction, constants, effortFigures, margins);
         if (stable && prediction is not null && target is not null && target.Zeta < 1)
         {
             var overshootGap = Math.Abs(metrics.OvershootPercent - prediction.OvershootPercent);

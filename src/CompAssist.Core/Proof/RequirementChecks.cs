@@ -22,6 +22,21 @@ public static class RequirementChecks
     /// <summary>Row name of the peak time.</summary>
     public const string PeakTime = "peak time (s)";
 
+    /// <summary>Row name of the rise time.</summary>
+    public const string RiseTime = "rise time 10-90 % (s)";
+
+    /// <summary>Row name of the phase margin.</summary>
+    public const string PhaseMargin = "phase margin (°)";
+
+    /// <summary>Row name of the gain margin (the smaller of upward and downward).</summary>
+    public const string GainMargin = "gain margin (dB)";
+
+    /// <summary>Row name of the delay margin.</summary>
+    public const string DelayMargin = "delay margin (s)";
+
+    /// <summary>Row name of the sensitivity peak.</summary>
+    public const string SensitivityPeak = "sensitivity peak Ms";
+
     /// <summary>Row name of the actuator peak.</summary>
     public const string ActuatorPeak = "peak |u| (actuator)";
 
@@ -32,7 +47,8 @@ public static class RequirementChecks
         Requirements? requirements,
         SecondOrderPrediction? prediction = null,
         ErrorConstants? constants = null,
-        EffortFigures? effort = null)
+        EffortFigures? effort = null,
+        StabilityMargins? margins = null)
     {
         ArgumentNullException.ThrowIfNull(metrics);
         var rows = ImmutableArray.CreateBuilder<RequirementCheck>();
@@ -42,7 +58,7 @@ public static class RequirementChecks
         rows.Add(new RequirementCheck(Settling2, metrics.SettlingTime2Percent, band2, prediction?.SettlingTime2Percent, Valid: stable));
         rows.Add(new RequirementCheck(Settling5, metrics.SettlingTime5Percent, band5, prediction?.SettlingTime5Percent, Valid: stable));
         rows.Add(new RequirementCheck(PeakTime, metrics.PeakTime, requirements?.MaxPeakTime, prediction?.PeakTime, Valid: stable));
-        rows.Add(new RequirementCheck("rise time 10-90 % (s)", metrics.RiseTime, null, null, Valid: stable));
+        rows.Add(new RequirementCheck(RiseTime, metrics.RiseTime, requirements?.MaxRiseTime, null, Valid: stable));
         if (metrics.UndershootPercent > 0)
         {
             rows.Add(new RequirementCheck("undershoot %", metrics.UndershootPercent, null, null, Valid: stable));
@@ -64,6 +80,24 @@ public static class RequirementChecks
             rows.Add(new RequirementCheck(ActuatorPeak, effort.Peak, limit, null, Valid: stable));
         }
 
+        if (requirements is { NeedsMargins: true })
+        {
+            var valid = stable && margins is not null;
+            var gain = margins is null ? double.NaN : Math.Min(margins.GainMarginDb, margins.GainReductionMarginDb);
+            AddIfGiven(rows, PhaseMargin, margins?.PhaseMarginDeg, requirements.MinPhaseMarginDegrees, RequirementBound.AtLeast, valid);
+            AddIfGiven(rows, GainMargin, gain, requirements.MinGainMarginDb, RequirementBound.AtLeast, valid);
+            AddIfGiven(rows, DelayMargin, margins?.DelayMargin, requirements.MinDelayMargin, RequirementBound.AtLeast, valid);
+            AddIfGiven(rows, SensitivityPeak, margins?.SensitivityPeak, requirements.MaxSensitivityPeak, RequirementBound.AtMost, valid);
+        }
+
         return rows.ToImmutable();
+    }
+
+    private static void AddIfGiven(ImmutableArray<RequirementCheck>.Builder rows, string name, double? measured, double? bound, RequirementBound side, bool valid)
+    {
+        if (bound is not null)
+        {
+            rows.Add(new RequirementCheck(name, measured ?? double.NaN, bound, null, side, valid));
+        }
     }
 }

@@ -106,7 +106,8 @@ public static class RobustnessSweep
             var output = ClosedLoopTransfers.Of(varied, compensator, roots).Output;
             var m = StepAnalysis.Measure(CascadeRealization.Of(output), roots, output.DcGain, LoopCheck.Horizon(roots));
             var constants = ErrorConstants.Of(varied, compensator);
-            return new RobustnessCorner(factors, true, m, RequirementChecks.Of(m, true, requirements, constants: constants), leastDamping);
+            var margins = requirements is { NeedsMargins: true } ? MarginAnalyzer.Analyze(varied, compensator) : null;
+            return new RobustnessCorner(factors, true, m, RequirementChecks.Of(m, true, requirements, constants: constants, margins: margins), leastDamping);
         }
         catch (RootFindingException)
         {

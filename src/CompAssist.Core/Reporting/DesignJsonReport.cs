@@ -207,6 +207,10 @@ public static class DesignJsonReport
 
         CheckJsonSection.Write(w, report.Check, report.Robustness);
         CheckJsonSection.WriteVerdict(w, report.Verdict);
+        if (report.Search is { } search)
+        {
+            SearchSection.Write(w, search);
+        }
         w.WriteStartObject("locus");
         LocusReport.WriteFeatures(w, report.Locus);
         w.WriteEndObject();

@@ -49,6 +49,10 @@ public static class DesignTextReport
         sb.AppendLine($"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
         sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ)");
         sb.AppendLine();
+        if (report.Search is { } search)
+        {
+            SearchSection.Append(sb, search);
+        }
 
         sb.AppendLine(design.Placement is { } placement ? $"Synthesis ({kindName}, lead placement: {PlacementNames.NameOf(placement)})" : $"Synthesis ({kindName})");
         foreach (var note in design.Notes)

@@ -20,6 +20,24 @@ public sealed record Requirements
     /// <summary>Largest acceptable peak time.</summary>
     public double? MaxPeakTime { get; init; }
 
+    /// <summary>Largest acceptable 10–90 % rise time, s (a requirement on the simulated loop; it does not shape the region).</summary>
+    public double? MaxRiseTime { get; init; }
+
+    /// <summary>Smallest acceptable phase margin, degrees.</summary>
+    public double? MinPhaseMarginDegrees { get; init; }
+
+    /// <summary>Smallest acceptable gain margin in dB, upward and (where the loop has one) downward.</summary>
+    public double? MinGainMarginDb { get; init; }
+
+    /// <summary>Smallest acceptable delay margin, s.</summary>
+    public double? MinDelayMargin { get; init; }
+
+    /// <summary>Largest acceptable sensitivity peak Ms = max |1/(1 + L)| (e.g. 2 for a 6 dB peak).</summary>
+    public double? MaxSensitivityPeak { get; init; }
+
+    /// <summary>True when a requirement needs the margins of the loop.</summary>
+    public bool NeedsMargins => MinPhaseMarginDegrees is not null || MinGainMarginDb is not null || MinDelayMargin is not null || MaxSensitivityPeak is not null;
+
     /// <summary>Damping ratio given directly.</summary>
     public double? Zeta { get; init; }
 

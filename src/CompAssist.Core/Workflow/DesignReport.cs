@@ -14,6 +14,9 @@ namespace CompAssist.Core.Workflow;
 /// <param name="Locus">The root locus of the compensated loop C·G·H (its gain factor K = 1 is the design).</param>
 public sealed record DesignReport(TargetSelection Selection, Design Design, LoopProof Proof, LoopCheckReport Check, RobustnessReport? Robustness, LocusResult Locus)
 {
+    /// <summary>The search that chose this design's target and choices, when one ran.</summary>
+    public Search.SearchOutcome? Search { get; init; }
+
     /// <summary>The proof's verdict: stable, and every requirement holds nominally and at every corner.</summary>
     public LoopVerdict Verdict => LoopVerdict.Of(Check, Robustness);
 }

@@ -6,6 +6,7 @@ using CompAssist.Core.Model;
 using CompAssist.Core.Numerics;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
+using CompAssist.Core.Search;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
 
@@ -94,11 +95,96 @@ public static class DesignWorkflow
             return DesignRun.Failed(design.Problem);
         }
 
+        return Prove(input, loop, selection.Value, design.Value, null);
+    }
+
+    /// <summary>True when the case asks for a target to be searched (requirements, no explicit target or ζ/ωn pair).</summary>
+    public static bool Searches(CaseFile input)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        var r = input.Requirements;
+        return r.Point is null && r.Zeta is null && r.NaturalFrequency is null
+            && (r.MaxSettlingTime is not null || r.MaxPeakTime is not null || r.MaxOvershootPercent is not null);
+    }
+
+    /// <summary>
+    /// Searches the region for a design whose simulated loop meets every requirement (see
+    /// <see cref="DesignSearch"/>) and proves the winner in full. A case with an explicit target, or without a
+    /// speed requirement to span a region, is designed as <see cref="Run"/> designs it.
+    /// </summary>
+    /// <exception cref="OperationCanceledException">The search was cancelled.</exception>
+    public static DesignRun Search(CaseFile input, SearchOptions options, IProgress<int>? progress = null, CancellationToken cancellation = default)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        ArgumentNullException.ThrowIfNull(options);
+        if (!Searches(input) || input.Plant is null)
+        {
+            return Run(input);
+        }
+
+        var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
+        if (loopResult.FieldError is { } fe)
+        {
+            return DesignRun.Failed(fe);
+        }
+
+        if (loopResult.Problem is { } lp)
+        {
+            return DesignRun.Failed(lp);
+        }
+
+        var loop = loopResult.Loop!;
+        if (KindOf(input.CompensatorType) is not { } kind)
+        {
+            return Run(input);
+        }
+
+        var optionsProblem = kind is CompensatorKind.Lead or CompensatorKind.LeadLag ? CheckLeadOptions(input.Lead) : null;
+        if (optionsProblem is not null)
+        {
+            return DesignRun.Failed(optionsProblem);
+        }
+
+        // Only an overshoot bound: the region is the ζ wedge; its reference speed is where the ζ ray meets
+        // the uncompensated locus (where a lag or PI, which keep the transient, would put the target).
+        TargetPole? reference = null;
+        if (!TargetSelector.Select(input.Requirements).IsSuccess && OnlyDamping(input.Requirements) is { } zeta)
+        {
+            var onLocus = DampingRay.OnLocus(loop, zeta);
+            if (!onLocus.IsSuccess)
+            {
+                return Run(input);
+            }
+
+            reference = TargetPole.At(onLocus.Value.Point);
+        }
+
+        var found = DesignSearch.Run(loop, input.Requirements, reference, kind, input.Lead, input.Slow, input.Check, input.Variations, options, progress, cancellation);
+        if (!found.IsSuccess)
+        {
+            return DesignRun.Failed(found.Problem);
+        }
+
+        var outcome = found.Value;
+        var winner = outcome.Winner;
+        var selection = TargetSelector.Select(input.Requirements with { Point = winner.Choice.Target.Point });
+        if (!selection.IsSuccess)
+        {
+            return DesignRun.Failed(selection.Problem);
+        }
+
+        var source = $"searched: the best of {outcome.Evaluated} candidates over the region and 30 % beyond ({SearchObjectiveNames.Meaning(outcome.Objective)}){(outcome.Meets ? string.Empty : "; none meets every requirement, this is the closest")}";
+        var searched = input with { Lead = winner.Choice.Lead, Slow = winner.Choice.Slow };
+        return Prove(searched, loop, selection.Value with { Source = source }, winner.Design, outcome);
+    }
+
+    private static DesignRun Prove(CaseFile input, Loop loop, TargetSelection selection, Design design, SearchOutcome? search)
+    {
         try
         {
-            var compensator = design.Value.Compensator.TransferFunction;
-            var proof = LoopProver.Prove(loop, compensator, design.Value.Target);
-            var check = LoopCheck.Run(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), input.Check, input.Requirements, design.Value.Target);
+            var compensator = design.Compensator.TransferFunction;
+            var proof = LoopProver.Prove(loop, compensator, design.Target);
+            var check = LoopCheck.Run(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), input.Check, input.Requirements, design.Target);
             RobustnessReport? robustness = null;
             if (!input.Variations.IsEmpty)
             {
@@ -112,7 +198,7 @@ public static class DesignWorkflow
             }
 
             var locus = LocusEngine.Compute(loop, compensator);
-            return DesignRun.Success(new DesignReport(selection.Value, design.Value, proof, check, robustness, locus));
+            return DesignRun.Success(new DesignReport(selection, design, proof, check, robustness, locus) { Search = search });
         }
         catch (RootFindingException e)
         {

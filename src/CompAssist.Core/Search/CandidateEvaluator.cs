@@ -1,0 +1,118 @@
+using System.Collections.Immutable;
+using System.Numerics;
+using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
+using CompAssist.Core.Proof;
+using CompAssist.Core.Simulation;
+using CompAssist.Core.Synthesis;
+using CompAssist.Core.Targets;
+
+namespace CompAssist.Core.Search;
+
+/// <summary>
+/// Synthesizes one candidate by the angle and magnitude conditions and proves it as <c>design</c> does
+/// (verified roots, step figures on the exact solution, margins and effort where a requirement or the
+/// objective needs them), then judges it against the requirements with the search's margin — at every
+/// corner of the variation box too, once it meets nominally. Pure: any thread may evaluate any candidate.
+/// </summary>
+internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, CompensatorKind kind, CheckOptions check, IReadOnlyList<PlantVariation> variations, SearchOptions options)
+{
+    private readonly bool needsEffort = check.ActuatorLimit is not null || options.Objective == SearchObjective.ActuatorPeak;
+    private readonly bool needsMargins = requirements.NeedsMargins || options.Objective == SearchObjective.SensitivityPeak;
+
+    /// <summary>The candidate for these choices, or null when the kind cannot be synthesized there.</summary>
+    public SearchCandidate? Evaluate(SearchChoice choice, int order)
+    {
+        var outcome = Synthesizer.Design(loop, choice.Target, kind, choice.Lead, choice.Slow, requirements.Constant);
+        if (!outcome.IsSuccess)
+        {
+            return null;
+        }
+
+        var design = outcome.Value;
+        var c = design.Compensator.TransferFunction;
+        ImmutableArray<Complex> roots;
+        try
+        {
+            roots = RootFinder.Find(loop.Characteristic(c)).Roots;
+        }
+        catch (RootFindingException)
+        {
+            return null;
+        }
+
+        var unstable = roots.Count(r => r.Real >= 0);
+        if (unstable > 0)
+        {
+            return new SearchCandidate(choice, design, false, false, 1000.0 + unstable, double.PositiveInfinity, [], order);
+        }
+
+        var transfers = ClosedLoopTransfers.Of(loop, c, roots);
+        var horizon = LoopCheck.Horizon(roots);
+        var metrics = StepAnalysis.Measure(CascadeRealization.Of(transfers.Output), roots, transfers.Output.DcGain, horizon);
+        EffortFigures? effort = null;
+        if (needsEffort)
+        {
+            effort = transfers.Effort is { } u
+                ? Effort(CascadeRealization.Of(u), roots, horizon)
+                : new EffortFigures(double.PositiveInfinity, double.PositiveInfinity, 0.0, check.ReferenceStep, check.ActuatorLimit);
+        }
+
+        var margins = needsMargins ? MarginAnalyzer.Analyze(loop, c) : null;
+        var checks = RequirementChecks.Of(metrics, true, requirements, null, ErrorConstants.Of(loop, c), effort, margins);
+        var violation = checks.Sum(Shortfall);
+        if (violation < 0.2 && variations.Count > 0)
+        {
+            // Meets, or nearly, nominally: every corner of the variation box must meet too (the verdict's rule).
+            var sweep = RobustnessSweep.Run(loop, c, variations, requirements);
+            if (sweep.IsSuccess)
+            {
+                violation += sweep.Value.Corners.Max(corner => corner.Stable ? corner.Checks.Sum(Shortfall) : 10.0);
+            }
+        }
+
+        var objective = options.Objective switch
+        {
+            SearchObjective.ActuatorPeak => effort!.Peak,
+            SearchObjective.SensitivityPeak => margins!.SensitivityPeak,
+            SearchObjective.SettlingTime => requirements.Band == SettlingBand.FivePercent ? metrics.SettlingTime5Percent : metrics.SettlingTime2Percent,
+            _ => HighFrequencyGain(c),
+        };
+        return new SearchCandidate(choice, design, true, violation == 0, violation, objective, checks, order);
+    }
+
+    /// <summary>|C(∞)|: the gain of a biproper compensator at high frequency; 0 when strictly proper, +∞ when improper.</summary>
+    public static double HighFrequencyGain(TransferFunction c) => c.RelativeDegree switch
+    {
+        0 => Math.Abs(c.Gain),
+        > 0 => 0.0,
+        _ => double.PositiveInfinity,
+    };
+
+    private EffortFigures Effort(StateSpace u, ImmutableArray<Complex> roots, double horizon)
+    {
+        var (peak, time) = StepAnalysis.PeakMagnitude(u, roots, horizon);
+        return new EffortFigures(u.D * check.ReferenceStep, peak * Math.Abs(check.ReferenceStep), time, check.ReferenceStep, check.ActuatorLimit);
+    }
+
+    /// <summary>How far a row falls short of its bound tightened by the margin, relative to the bound (0 when it holds).</summary>
+    private double Shortfall(RequirementCheck row)
+    {
+        if (row.Required is not { } bound)
+        {
+            return 0.0;
+        }
+
+        var m = row.Measured;
+        if (double.IsNaN(m))
+        {
+            return 10.0;
+        }
+
+        var scale = Math.Max(Math.Abs(bound), 1e-12);
+        var excess = row.Bound == RequirementBound.AtMost
+            ? (m - (bound * (1 - options.RequirementMargin))) / scale
+            : ((bound * (1 + options.RequirementMargin)) - m) / scale;
+        return excess > 0 ? Math.Min(excess, 10.0) : 0.0;
+    }
+}
