@@ -10,8 +10,8 @@ namespace CompAssist.Core.Search;
 
 /// <summary>
 /// Searches the admissible region for a compensator whose simulated loop meets every requirement, and picks
-/// the best by a stated objective. First pass: a 25 × 40 grid of targets (σ log-spaced from 0.7 to 3.5 times
-/// the corner's, ωd from 5 % to 130 % of the ζ boundary at that σ: the region and 30 % beyond), each with the
+/// the best by a stated objective. First pass: a 25 × 40 grid of targets (σ log-spaced from 0.7 to 10 times
+/// the corner's — the region is open toward faster targets —, ωd from 5 % to 130 % of the ζ boundary at that σ: the region and 30 % beyond), each with the
 /// kind's given choices. Second pass: around the 20 best targets, every placement of the kind that applies
 /// and each continuous free choice at five values. Then a pattern search (coordinate steps halved on failure)
 /// from the five best until a step improves the objective by less than 0.5 %. A candidate that meets nominally is
@@ -23,6 +23,7 @@ public static class DesignSearch
     private const int GridSigma = 25;
     private const int GridOmega = 40;
     private const int SecondPassTargets = 20;
+    private const double MaxSigmaFactor = 10.0;
     private const int PatternStarts = 5;
 
     /// <summary>Runs the search around the region's corner; refused when the requirements define no region to search.</summary>
@@ -87,7 +88,7 @@ public static class DesignSearch
         var grid = new List<SearchChoice>(rows * columns);
         for (var i = 0; i < rows; i++)
         {
-            var sigma = c0.Sigma * 0.7 * Math.Pow(3.5 / 0.7, rows == 1 ? 0.0 : (double)i / (rows - 1));
+            var sigma = c0.Sigma * 0.7 * Math.Pow(MaxSigmaFactor / 0.7, rows == 1 ? 0.0 : (double)i / (rows - 1));
             var boundary = zetaMin > 0 ? sigma * Math.Sqrt(1 - (zetaMin * zetaMin)) / zetaMin : Math.Max(c0.DampedFrequency / c0.Sigma, 1.0) * sigma;
             for (var j = 0; j < columns; j++)
             {
