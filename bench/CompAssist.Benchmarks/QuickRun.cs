@@ -48,6 +48,33 @@ public static class QuickRun
                 fields.Add($"\"{name}_p95_ms\": {p95.ToString("0.0000", CultureInfo.InvariantCulture)}");
             }
 
+            if (order <= 10)
+            {
+                // The default search (not a timed test): requirements a little beyond the benchmark target's
+                // second-order figures, on one thread and on every core; the median of three runs each.
+                var requirements = new CompAssist.Core.Targets.Requirements
+                {
+                    MaxOvershootPercent = Math.Max(5, c.Target.Predict().OvershootPercent),
+                    MaxSettlingTime = 1.5 * c.Target.Predict().SettlingTime2Percent,
+                };
+                foreach (var (label, threads) in new (string, int?)[] { ("search_1core_ms", 1), ("search_allcores_ms", null) })
+                {
+                    var times = new List<double>();
+                    var evaluated = 0;
+                    for (var i = 0; i < 3; i++)
+                    {
+                        var sw = Stopwatch.StartNew();
+                        var found = CompAssist.Core.Search.DesignSearch.Run(c.Loop, requirements, CompensatorKind.Lead, c.Options, new SlowPoleOptions(), new CheckOptions(), [], new CompAssist.Core.Search.SearchOptions { MaxParallelism = threads });
+                        times.Add(sw.Elapsed.TotalMilliseconds);
+                        evaluated = found.IsSuccess ? found.Value.Evaluated : 0;
+                    }
+
+                    times.Sort();
+                    fields.Add($"\"{label}\": {times[1].ToString("0.0", CultureInfo.InvariantCulture)}");
+                    fields.Add($"\"search_candidates\": {evaluated}");
+                }
+            }
+
             if (order >= 10)
             {
                 // Key press to finished frame in the editor at 80×24 (budget 16 ms at order 10). One editor at a

@@ -59,6 +59,8 @@ internal sealed class EditorWindow : Runnable
     private DesignSession? sweepSession;
     private int sweepRevision = -1;
     private string? sweepNote;
+    private CancellationTokenSource? searchCancel;
+    private Core.Search.SearchOutcome? searched;
     private bool refreshingFields;
     private Prompt? prompt;
     private HandoffOptions handoffOptions = new();
@@ -309,6 +311,7 @@ internal sealed class EditorWindow : Runnable
         K(KeyScope.Anywhere, "F5", "type the target point exactly", AskTarget, Key.F5);
         K(KeyScope.Anywhere, "F7", "the full design report with its proof", ShowReport, Key.F7);
         K(KeyScope.Anywhere, "F8", "hand-off: discretize, re-prove, export for firmware", ShowHandoff, Key.F8);
+        K(KeyScope.Anywhere, "F9", "search the region for a design whose simulated loop meets every requirement (in the background; then take the winner or a runner-up)", StartSearch, Key.F9);
         K(KeyScope.Anywhere, "Ctrl+Z", "undo the last change", () => Act(() => Session.Undo(), reframe: false, refreshFields: true), Key.Z.WithCtrl);
         K(KeyScope.Anywhere, "Ctrl+Y", "redo", () => Act(() => Session.Redo(), reframe: false, refreshFields: true), Key.Y.WithCtrl);
         K(KeyScope.Anywhere, "Ctrl+S / F10", "save the case (asks for a name the first time)", () => Save(null), Key.S.WithCtrl, Key.F10);
@@ -332,6 +335,7 @@ internal sealed class EditorWindow : Runnable
         K(KeyScope.SPlane, "", "previous lead placement", () => Act(() => Session.CyclePlacement(-1), reframe: false, refreshFields: true), Key.P.WithShift);
         K(KeyScope.SPlane, "+ / -", "zoom the picture in / out", () => plane.Zoom(1.5), new Key('+'), new Key('='));
         K(KeyScope.SPlane, "", "zoom out", () => plane.Zoom(1 / 1.5), new Key('-'));
+        K(KeyScope.SPlane, "s", "search the region (as F9)", StartSearch, Key.S);
         K(KeyScope.SPlane, "0", "frame the picture around the target again", () => RefreshAll(reframe: true, refreshFields: false), Key.D0);
         K(KeyScope.SPlane, "a", "toggle plain ASCII / Unicode pictures", ToggleStyle, Key.A);
         K(KeyScope.SPlane, "?", "this list of keys", ShowHelp, new Key('?'));
@@ -636,6 +640,91 @@ internal sealed class EditorWindow : Runnable
             token);
     }
 
+    private void StartSearch()
+    {
+        if (sweeps is null)
+        {
+            Say("The search runs in the background, and this editor has no background runner.");
+            return;
+        }
+
+        if (Session.SearchableCase() is not { } searchable)
+        {
+            Say("No region to search: give an overshoot bound with a settling time or a peak time.");
+            return;
+        }
+
+        CancelSearch();
+        searchCancel = new CancellationTokenSource();
+        var owner = Session;
+        Say("Searching the region in the background; keys keep working on the design on screen.");
+        sweeps.StartSearch(
+            (progress, token) => DesignWorkflow.Search(searchable, new Core.Search.SearchOptions { MaxParallelism = 1 }, progress, token),
+            count =>
+            {
+                if (ReferenceEquals(owner, Session))
+                {
+                    Say($"Searching the region: {count} candidates so far.");
+                }
+            },
+            run =>
+            {
+                if (ReferenceEquals(owner, Session))
+                {
+                    CancelSearch();
+                    ShowSearch(run);
+                }
+            },
+            text =>
+            {
+                if (ReferenceEquals(owner, Session))
+                {
+                    CancelSearch();
+                    Say(text);
+                }
+            },
+            searchCancel.Token);
+    }
+
+    private void ShowSearch(DesignRun run)
+    {
+        if (run.Report?.Search is not { } outcome)
+        {
+            Say(run.Problem is { } p ? $"Search: {p.Message}. {p.Hint}" : run.FieldError is { } f ? $"Search: the {f.Field} cannot be read." : "Search: nothing to show.");
+            return;
+        }
+
+        searched = outcome;
+        var sb = new StringBuilder();
+        sb.AppendLine("Take one (its target and choices become the case; Ctrl+Z undoes it):");
+        var all = new[] { outcome.Winner }.Concat(outcome.RunnersUp).ToList();
+        for (var i = 0; i < all.Count; i++)
+        {
+            TextWrap.AppendTo(sb, $"{i + 1}  {SearchSection.CandidateLine(all[i], outcome.Objective)}", "  ", "     ");
+        }
+
+        sb.AppendLine();
+        SearchSection.Append(sb, outcome);
+
+        page.Open("search", outcome.Meets ? "Search: a design that meets every requirement" : "Search: nothing meets every requirement", sb.ToString(), $"Enter or 1 takes the winner · 2–{all.Count} a runner-up · Esc closes");
+    }
+
+    private static int? TakeIndex(Key key) =>
+        key == Key.Enter || key == Key.D1 ? 0
+        : key == Key.D2 ? 1
+        : key == Key.D3 ? 2
+        : key == Key.D4 ? 3
+        : key == Key.D5 ? 4
+        : key == Key.D6 ? 5
+        : null;
+
+    private void CancelSearch()
+    {
+        searchCancel?.Cancel();
+        searchCancel?.Dispose();
+        searchCancel = null;
+    }
+
     private void CancelSweep()
     {
         sweepCancel?.Cancel();
@@ -926,6 +1015,8 @@ internal sealed class EditorWindow : Runnable
     private void OpenSession(DesignSession next)
     {
         CancelSweep();
+        CancelSearch();
+        searched = null;
         sweepNote = null;
         Session = next;
         lastAutosavedRevision = -1;
@@ -1018,6 +1109,7 @@ internal sealed class EditorWindow : Runnable
     {
         QuitRequested = true;
         CancelSweep();
+        CancelSearch();
         App?.RequestStop();
     }
 
@@ -1148,6 +1240,13 @@ internal sealed class EditorWindow : Runnable
         else if (page.Kind == "handoff" && keys.FirstOrDefault(k => k.Scope == KeyScope.Handoff && k.Keys.Any(c => c == key)) is { } handoffKey)
         {
             handoffKey.Action(key);
+        }
+        else if (page.Kind == "search" && searched is { } outcome && TakeIndex(key) is { } index && index <= outcome.RunnersUp.Length)
+        {
+            var candidate = index == 0 ? outcome.Winner : outcome.RunnersUp[index - 1];
+            page.Close();
+            plane.SetFocus();
+            Act(() => Session.TakeSearched(candidate.Choice, index == 0 ? "take the searched winner" : $"take searched runner-up {index}"), reframe: true, refreshFields: true);
         }
         else if (key == Key.Q.WithCtrl)
         {

@@ -45,6 +45,41 @@ internal sealed class ThreadPoolSweepRunner(IApplication app) : ISweepRunner
             CancellationToken.None);
     }
 
+    public void StartSearch(Func<IProgress<int>, CancellationToken, Core.Workflow.DesignRun> work, Action<int> progress, Action<Core.Workflow.DesignRun> done, Action<string> failed, CancellationToken cancellation)
+    {
+        var reporter = new Progress(app, progress, cancellation);
+        _ = Task.Run(
+            () =>
+            {
+                try
+                {
+                    var result = work(reporter, cancellation);
+                    app.Invoke(() =>
+                    {
+                        if (!cancellation.IsCancellationRequested)
+                        {
+                            done(result);
+                        }
+                    });
+                }
+                catch (OperationCanceledException)
+                {
+                    // Cancelled: the case changed or the user quit.
+                }
+                catch (Exception e) when (e is not OutOfMemoryException)
+                {
+                    app.Invoke(() =>
+                    {
+                        if (!cancellation.IsCancellationRequested)
+                        {
+                            failed($"The search failed ({e.GetType().Name}: {e.Message}); please report it. The design on screen is unaffected.");
+                        }
+                    });
+                }
+            },
+            CancellationToken.None);
+    }
+
     private sealed class Progress(IApplication app, Action<int> report, CancellationToken cancellation) : IProgress<int>
     {
         public void Report(int value) => app.Invoke(() =>

@@ -36,6 +36,32 @@ public sealed class EditorWindowTests : IDisposable
     }
 
     [Fact]
+    public void SearchKey_RunsInTheBackgroundAndOffersTheWinnerToTake()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        var before = h.Session.CurrentTarget!.Value;
+        h.Press(Key.F9);
+        Assert.Equal(1, h.Sweeps.PendingSearches);
+        Assert.Contains("Searching the region", h.Screen());
+
+        // The search has not finished: a key still moves the target at once.
+        h.Press(Key.CursorLeft);
+        Assert.NotEqual(before, h.Session.CurrentTarget!.Value);
+
+        h.Sweeps.RunSearches();
+        Assert.Contains("Take one", h.Screen());
+        h.Press(Key.Enter);
+        var taken = h.Session.CurrentTarget!.Value;
+        Assert.True(h.Session.Latest.IsSuccess);
+        Assert.True(h.Session.Latest.Report!.Verdict.Meets || h.Session.Case.Variations.Length > 0, "the winner meets nominally");
+        Assert.Equal(taken, h.Session.Case.Requirements.Point);
+
+        // One undo step takes it back.
+        h.Press(Key.Z.WithCtrl);
+        Assert.NotEqual(taken, h.Session.CurrentTarget!.Value);
+    }
+
+    [Fact]
     public void ArrowLeft_OnThePicture_MovesTheTargetAndRedesignsAtOnce()
     {
         using var h = new EditorHarness(EditorHarness.Demo(folder));

@@ -167,6 +167,24 @@ public sealed class DesignSession
         return Commit(Case with { Requirements = Case.Requirements with { Point = point } }, what ?? $"set target to {TransferFunctionFormatter.Complex(point, 4)}", null);
     }
 
+    /// <summary>
+    /// A search the session can run for the case as it stands (null when the requirements span no region):
+    /// its requirements with the target taken out, so that the region is searched, not the current point.
+    /// </summary>
+    public CaseFile? SearchableCase()
+    {
+        var open = Case with { Requirements = Case.Requirements with { Point = null } };
+        return DesignWorkflow.Searches(open) ? open : null;
+    }
+
+    /// <summary>Takes a searched candidate's target and free choices into the case (one undo step).</summary>
+    public bool TakeSearched(Search.SearchChoice choice, string what)
+    {
+        ArgumentNullException.ThrowIfNull(choice);
+        var point = choice.Target.Point;
+        return Commit(Case with { Requirements = Case.Requirements with { Point = new Complex(point.Real, Math.Abs(point.Imaginary)) }, Lead = choice.Lead, Slow = choice.Slow }, what, null);
+    }
+
     /// <summary>Puts the target back at the requirement corner. False when there is no corner to go back to.</summary>
     public bool SnapToCorner()
     {

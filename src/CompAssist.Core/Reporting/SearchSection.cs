@@ -123,6 +123,9 @@ public static class SearchSection
         w.WriteBoolean("stable", c.Stable);
     }
 
+    /// <summary>One candidate on one line: target, choices, objective, the required figures and whether it meets.</summary>
+    public static string CandidateLine(SearchCandidate c, SearchObjective objective) => Line(c, objective);
+
     private static string Line(SearchCandidate c, SearchObjective objective)
     {
         var p = c.Choice.Target.Point;

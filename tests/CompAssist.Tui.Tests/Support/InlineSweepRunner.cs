@@ -9,7 +9,28 @@ internal sealed class InlineSweepRunner : ISweepRunner
 {
     private readonly List<(SweepRequest Request, Action<int> Progress, Action<Outcome<RobustnessReport>> Done, CancellationToken Token)> pending = [];
 
+    private readonly List<(Func<IProgress<int>, CancellationToken, Core.Workflow.DesignRun> Work, Action<int> Progress, Action<Core.Workflow.DesignRun> Done, CancellationToken Token)> searches = [];
+
     public int Started { get; private set; }
+
+    public int PendingSearches => searches.Count;
+
+    public void StartSearch(Func<IProgress<int>, CancellationToken, Core.Workflow.DesignRun> work, Action<int> progress, Action<Core.Workflow.DesignRun> done, Action<string> failed, CancellationToken cancellation) =>
+        searches.Add((work, progress, done, cancellation));
+
+    /// <summary>Runs every pending search that was not cancelled and delivers the results.</summary>
+    public void RunSearches()
+    {
+        var now = searches.ToList();
+        searches.Clear();
+        foreach (var (work, progress, done, token) in now)
+        {
+            if (!token.IsCancellationRequested)
+            {
+                done(work(new Reporter(progress), token));
+            }
+        }
+    }
 
     public int Pending => pending.Count;
 
