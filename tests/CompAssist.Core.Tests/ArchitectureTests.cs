@@ -53,5 +53,27 @@ public class ArchitectureTests
         }
     }
 
+    [Fact]
+    public void Core_StringLiterals_NameNoCommandLineFlag()
+    {
+        // Core messages name the setting ("the zero of the fixed-zero placement"); each front end says where
+        // to change it. A "--" followed by a letter inside a string literal is a flag.
+        var flag = new System.Text.RegularExpressions.Regex("\"[^\"\n]*--[a-z][^\"\n]*\"");
+        var found = new List<string>();
+        foreach (var file in Directory.GetFiles(FindSourceFolder(), "*.cs", SearchOption.AllDirectories).Where(f => !f.Contains("/obj/", StringComparison.Ordinal)))
+        {
+            var lines = File.ReadAllLines(file);
+            for (var i = 0; i < lines.Length; i++)
+            {
+                if (!lines[i].TrimStart().StartsWith("//", StringComparison.Ordinal) && flag.IsMatch(lines[i]))
+                {
+                    found.Add($"{Path.GetFileName(file)}:{i + 1}: {lines[i].Trim()}");
+                }
+            }
+        }
+
+        Assert.True(found.Count == 0, string.Join(Environment.NewLine, found));
+    }
+
     private static string FindSourceFolder() => Path.Combine(Support.Repository.Root(), "src", "CompAssist.Core");
 }

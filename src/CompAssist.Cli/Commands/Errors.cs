@@ -19,7 +19,7 @@ internal static class Errors
         if (problem is not null)
         {
             stderr.WriteLine($"error: {problem.Message}.");
-            stderr.WriteLine($"hint: {problem.Hint}");
+            stderr.WriteLine($"hint: {SettingFlags.Hint(problem)}");
             return inputMissing ? CliApplication.InputError : CliApplication.Refused;
         }
 

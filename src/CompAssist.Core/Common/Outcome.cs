@@ -28,7 +28,7 @@ public sealed class Outcome<T>
     public static Outcome<T> Success(T value) => new(value ?? throw new ArgumentNullException(nameof(value)), null);
 
     /// <summary>A refusal with its reason.</summary>
-    public static Outcome<T> Refused(string message, string hint) => new(null, new Problem(message, hint));
+    public static Outcome<T> Refused(string message, string hint, Setting? about = null) => new(null, new Problem(message, hint, about));
 
     /// <summary>A refusal with its reason.</summary>
     public static Outcome<T> Refused(Problem problem) => new(null, problem ?? throw new ArgumentNullException(nameof(problem)));

@@ -18,14 +18,14 @@ public static class Discretizer
         ArgumentNullException.ThrowIfNull(c);
         if (!(t > 0) || !double.IsFinite(t))
         {
-            return Outcome<Result>.Refused($"Sample time {t} is not positive", "Give the sample time in seconds, e.g. --sample-time 0.001.");
+            return Outcome<Result>.Refused($"Sample time {t} is not positive", "Give the sample time in seconds, e.g. 0.001.", Setting.SampleTime);
         }
 
         if (!c.IsProper)
         {
             return Outcome<Result>.Refused(
                 "The compensator is improper (more zeros than poles, e.g. ideal PD or PID) and has no causal sampled form",
-                "Add a derivative filter (design with --filter-ratio N) before discretizing.");
+                "Add a derivative filter (design with a filter ratio of about 10) before discretizing.", Setting.FilterRatio);
         }
 
         if (c.Delay > 0)
@@ -49,7 +49,7 @@ public static class Discretizer
                 var w0 = prewarpFrequency ?? DefaultPrewarp(c, t);
                 if (!(w0 > 0) || w0 * t >= Math.PI)
                 {
-                    return Outcome<Result>.Refused($"Pre-warp frequency {F(w0)} rad/s is not between 0 and the Nyquist frequency {F(Math.PI / t)} rad/s", "Give --prewarp-frequency below π/T.");
+                    return Outcome<Result>.Refused($"Pre-warp frequency {F(w0)} rad/s is not between 0 and the Nyquist frequency {F(Math.PI / t)} rad/s", "Give a pre-warping frequency below π/T.", Setting.PrewarpFrequency);
                 }
 
                 var note = prewarpFrequency is null ? $"pre-warped at {F(w0)} rad/s (the default: the compensator's geometric-mean corner)" : $"pre-warped at {F(w0)} rad/s";

@@ -75,7 +75,7 @@ public sealed record HandoffPackage(
         }
         else
         {
-            return Outcome<HandoffPackage>.Refused("The loop has no gain crossover to size the sample time from", "Give --sample-time T.");
+            return Outcome<HandoffPackage>.Refused("The loop has no gain crossover to size the sample time from", "Give the sample time.", Setting.SampleTime);
         }
 
         if (double.IsFinite(wc))
@@ -132,7 +132,7 @@ public sealed record HandoffPackage(
                 }
                 catch (ArgumentException e)
                 {
-                    return Outcome<HandoffPackage>.Refused(e.Message.Split(" (Parameter", 2)[0], "Give --signal-fraction-bits between 0 and the word length − 1.");
+                    return Outcome<HandoffPackage>.Refused(e.Message.Split(" (Parameter", 2)[0], "Give the fractional bits of the signals between 0 and the word length − 1.", Setting.SignalFractionBits);
                 }
 
                 var (fixedHeader, fixedSource) = FixedPointCodeGenerator.Generate(options.Name, cascade, t, origin);
@@ -159,7 +159,7 @@ public sealed record HandoffPackage(
             var saturating = Math.Max(3 * report.Check.EffortFigures.ReferenceStep, limit is { } l && forms.Kp != 0 ? 2 * l / Math.Abs(forms.Kp) : 0);
             files.Add($"{options.Name}_pid-vectors.csv", PidVectors(pid, loop, saturating));
             pidNote = limit is null
-                ? "No actuator limit was given: the PID's output limits are ±1e9, so anti-windup never acts. Give --actuator-limit."
+                ? "No actuator limit was given: the PID's output limits are ±1e9, so anti-windup never acts. Give the actuator limit."
                 : $"PID form: positional, derivative on the measurement, output limits ±{F(limit.Value)}, anti-windup {options.AntiWindup}.";
         }
 

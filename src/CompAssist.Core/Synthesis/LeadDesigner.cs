@@ -260,7 +260,7 @@ public static class LeadDesigner
         {
             return Outcome<PlacedStage>.Refused(
                 $"A lead zero at {F(zero)} is not in the left half-plane",
-                "Give a negative zero location, e.g. --zero -3.");
+                "Give the fixed-zero placement a negative zero location, e.g. -3.", Setting.LeadZero);
         }
 
         var thetaZ = AngleSeen(s, zero);
@@ -281,7 +281,7 @@ public static class LeadDesigner
         {
             return Outcome<PlacedStage>.Refused(
                 $"A lead pole at {F(pole)} is not in the left half-plane",
-                "Give a negative pole location, e.g. --pole -10.");
+                "Give the fixed-pole placement a negative pole location, e.g. -10.", Setting.LeadPole);
         }
 
         var thetaP = AngleSeen(s, pole);
@@ -303,7 +303,7 @@ public static class LeadDesigner
         {
             return Outcome<PlacedStage>.Refused(
                 $"A pole/zero ratio of {F(ratio)} is not a lead (it must exceed 1)",
-                "Give --ratio greater than 1, e.g. 10 puts the pole ten times farther left than the zero.");
+                "Give the ratio placement a pole/zero ratio greater than 1, e.g. 10 puts the pole ten times farther left than the zero.", Setting.LeadRatio);
         }
 
         // f(u) = θ(z) − θ(r·z) − φ with z = −e^u. Scan u over sixteen decades around |s| for brackets.

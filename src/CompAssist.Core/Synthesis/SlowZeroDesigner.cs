@@ -54,7 +54,7 @@ public static class SlowZeroDesigner
         {
             if (requirement is null)
             {
-                return Outcome<Result>.Refused("A lag needs a steady-state requirement to size it", "Give --kp, --kv or --ka (or a steady-state error).");
+                return Outcome<Result>.Refused("A lag needs a steady-state requirement to size it", "Give a steady-state requirement: an error constant Kp, Kv or Ka, or a steady-state error.", Setting.SteadyState);
             }
 
             if (before == 0)

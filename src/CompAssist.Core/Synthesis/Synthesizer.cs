@@ -89,7 +89,7 @@ public static class Synthesizer
 
         if (requirement is null)
         {
-            return Outcome<Design>.Refused("The equal-factor lead-lag fixes its gain from the error constant", "Give --kp, --kv or --ka (or a steady-state error).");
+            return Outcome<Design>.Refused("The equal-factor lead-lag fixes its gain from the error constant", "Give a steady-state requirement: an error constant Kp, Kv or Ka, or a steady-state error.", Setting.SteadyState);
         }
 
         var plantConstant = Proof.ErrorConstants.Of(loop, TransferFunction.Unity).ValueOf(requirement.Kind);
@@ -166,7 +166,7 @@ public static class Synthesizer
         {
             return Outcome<Design>.Refused(
                 $"With the same ratio β = {F(leadPole / leadZero)} the lag moves the closed-loop pole from the target to {TransferFunctionFormatter.Complex(placed.Point, 4)}",
-                "Lower the lag's zero fraction (--zero-fraction), or use the independent lead-lag.");
+                "Lower the lag's zero fraction, or use the independent lead-lag.", Setting.ZeroFraction);
         }
 
         var notes = ImmutableArray.Create(

@@ -42,7 +42,7 @@ public static class TargetSelector
         }
         else if (requirements.Zeta is not null || requirements.NaturalFrequency is not null)
         {
-            return Outcome<TargetSelection>.Refused("ζ and ωn must be given together", "Give both --zeta and --wn, or use overshoot and settling time.");
+            return Outcome<TargetSelection>.Refused("ζ and ωn must be given together", "Give both the damping ratio and the natural frequency, or use overshoot and settling time.", Setting.DampingAndNaturalFrequency);
         }
         else if (zetaMin is { } z)
         {
@@ -50,7 +50,7 @@ public static class TargetSelector
             {
                 return Outcome<TargetSelection>.Refused(
                     "An overshoot bound fixes the damping ratio but not the speed",
-                    "Add a settling time or a peak time, or give ωn with --zeta/--wn.");
+                    "Add a settling time or a peak time, or give ζ with ωn.", Setting.DampingAndNaturalFrequency);
             }
 
             var tanTheta = Math.Sqrt(1.0 - (z * z)) / z;
@@ -67,7 +67,7 @@ public static class TargetSelector
         {
             return Outcome<TargetSelection>.Refused(
                 "The requirements do not fix a target pole",
-                "Give an overshoot with a settling or peak time, ζ and ωn, or a point with --target RE,IM.");
+                "Give an overshoot with a settling or peak time, ζ and ωn, or a target point.", Setting.Target);
         }
 
         var constraints = ImmutableArray.CreateBuilder<RegionConstraint>();

@@ -19,7 +19,7 @@ public sealed record CompensatedLoop(Loop? Loop, TransferFunction? Compensator, 
         ArgumentNullException.ThrowIfNull(compensator);
         if (input.Plant is null)
         {
-            return new(null, null, null, new Problem("No plant is given", "Give the plant G(s) with --plant or in the case file."));
+            return new(null, null, null, new Problem("No plant is given", "Give the plant G(s), e.g. 10/(s(s+2)).", Setting.Plant));
         }
 
         var (loop, fieldError, problem) = DesignWorkflow.BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);

@@ -39,7 +39,7 @@ public static class DesignWorkflow
         ArgumentNullException.ThrowIfNull(input);
         if (input.Plant is null)
         {
-            return DesignRun.Failed(new Problem("No plant is given", "Give the plant G(s), e.g. --plant \"10/(s(s+2))\" or [loop] plant = \"...\" in the case file."));
+            return DesignRun.Failed(new Problem("No plant is given", "Give the plant G(s), e.g. 10/(s(s+2)).", Setting.Plant));
         }
 
         var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
@@ -240,9 +240,9 @@ public static class DesignWorkflow
 
     private static Problem? CheckLeadOptions(LeadOptions lead) => lead.Placement switch
     {
-        LeadPlacement.FixedZero when lead.Zero is null => new Problem("The fixed-zero placement needs a zero location", "Give it with --zero X (a negative number)."),
-        LeadPlacement.FixedPole when lead.Pole is null => new Problem("The fixed-pole placement needs a pole location", "Give it with --pole X (a negative number)."),
-        LeadPlacement.Ratio when lead.Ratio is null => new Problem("The ratio placement needs a pole/zero ratio", "Give it with --ratio R (greater than 1)."),
+        LeadPlacement.FixedZero when lead.Zero is null => new Problem("The fixed-zero placement needs a zero location", "Give the zero of the fixed-zero placement (a negative number).", Setting.LeadZero),
+        LeadPlacement.FixedPole when lead.Pole is null => new Problem("The fixed-pole placement needs a pole location", "Give the pole of the fixed-pole placement (a negative number).", Setting.LeadPole),
+        LeadPlacement.Ratio when lead.Ratio is null => new Problem("The ratio placement needs a pole/zero ratio", "Give the pole/zero ratio of the ratio placement (greater than 1).", Setting.LeadRatio),
         _ => null,
     };
 }
