@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Numerics;
 
 namespace CompAssist.Core.Numerics;
@@ -16,7 +17,14 @@ public interface IRootFunction
 
     /// <summary>
     /// Value and derivative at <paramref name="s"/>, and the scale against which a rounding-level value is
-    /// judged (for a sum of products, the sum of the magnitudes of its terms).
+    /// judged (for expanded coefficients Σ|cₖ|·|s|ᵏ; for products, what rounding the point and the factors' roots
+    /// can change the value by).
     /// </summary>
     (Complex Value, Complex Derivative, double Scale) Evaluate(Complex s);
+
+    /// <summary>
+    /// Roots known exactly (factors shared by every term, such as a cancelled pole), and the function that is
+    /// left once they are divided out; by default none, and this function.
+    /// </summary>
+    (ImmutableArray<Complex> Exact, IRootFunction Remainder) Deflate() => ([], this);
 }

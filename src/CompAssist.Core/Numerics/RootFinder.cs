@@ -61,6 +61,15 @@ public static class RootFinder
             return new RootReport([], 0.0, 0.0);
         }
 
+        var (exact, rest) = function.Deflate();
+        if (!exact.IsEmpty)
+        {
+            // Shared factors are roots as they stand (the function is exactly zero there); only the rest is
+            // searched, and the evidence is taken on the whole function at every root.
+            var found = rest.Degree == 0 ? ImmutableArray<Complex>.Empty : Find(rest).Roots;
+            return Evidence(function, ConjugateSymmetry.Canonical([.. found, .. exact]));
+        }
+
         var seedPolynomial = function.ExpandForSeeds();
         if (seedPolynomial.Degree != function.Degree)
         {
@@ -199,9 +208,15 @@ public static class RootFinder
             result.Add(Complex.Conjugate(upper));
         }
 
+        return Evidence(f, ConjugateSymmetry.Canonical(result));
+    }
+
+    /// <summary>Checks every root on the function itself and reports the largest relative residual and Newton step.</summary>
+    private static RootReport Evidence(IRootFunction f, ImmutableArray<Complex> roots)
+    {
         var maxResidual = 0.0;
         var maxStep = 0.0;
-        foreach (var r in result)
+        foreach (var r in roots)
         {
             var (v, d, scale) = f.Evaluate(r);
             var residual = Relative(v, scale);
@@ -216,7 +231,7 @@ public static class RootFinder
             maxStep = Math.Max(maxStep, step);
         }
 
-        return new RootReport(ConjugateSymmetry.Canonical(result), maxResidual, maxStep);
+        return new RootReport(roots, maxResidual, maxStep);
     }
 
     /// <summary>

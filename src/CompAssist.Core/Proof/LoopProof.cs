@@ -26,7 +26,7 @@ public sealed record LoopProof
     /// <summary>Closed-loop zeros: zeros of C·G and poles of H.</summary>
     public required ImmutableArray<Complex> ClosedLoopZeros { get; init; }
 
-    /// <summary>The mixed relative residual of D + kN at the target (CharacteristicFunction.RelativeResidual), delay by Padé.</summary>
+    /// <summary>The relative residual of D + kN at the target in product form (CharacteristicFunction.RelativeResidual), delay by Padé.</summary>
     public required double TargetResidual { get; init; }
 
     /// <summary>|1 ± L(s*)| / (1 + |L(s*)|) with the delay exact (equal to <see cref="TargetResidual"/> without delay).</summary>

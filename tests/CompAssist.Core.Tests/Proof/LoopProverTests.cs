@@ -1,9 +1,12 @@
 using System.Numerics;
+using CompAssist.Core.Cases;
 using CompAssist.Core.Model;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
+using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
 using CompAssist.Core.Tests.Support;
+using CompAssist.Core.Workflow;
 
 namespace CompAssist.Core.Tests.Proof;
 
@@ -87,5 +90,48 @@ public class LoopProverTests
         Assert.True(proof.UsesPade);
         Assert.Equal(2 + 3, proof.Roots.Length);
         Assert.Contains(proof.Warnings, w => w.Contains("Padé", StringComparison.Ordinal));
+    }
+
+    public static TheoryData<string, string, double, double, bool> CancellingDesigns() => new()
+    {
+        // Designs whose compensator zero lands on a plant pole (invented numbers); each reported a largest relative
+        // residual of order 1 for roots right to rounding before the residual was taken in product form. The PD
+        // zero lands 8e-15 from the pole at −5 by itself (a near cancellation, not a shared factor).
+        { "6/((s+1)(s+4))", "lead", 20, 1, true },
+        { "10/(s(s+1)(s+5))", "pd", 10, 8, false },
+        { "0.1/((s+0.1)(s+0.5))", "lead", 20, 3, true },
+        { "10/(s(s+1)(s+5))", "lead", 15, 3, true },
+    };
+
+    [Theory]
+    [MemberData(nameof(CancellingDesigns))]
+    public void Prove_CancellingDesign_RootsVerifiedToRoundingAndAPerturbedRootIsNot(string plant, string type, double overshoot, double settling, bool exact)
+    {
+        var plantPole = ExpressionParser.ParseProper(plant).Value!.Poles.Where(p => p.Real < 0).Min(p => -p.Real);
+        var run = DesignWorkflow.Run(new CaseFile
+        {
+            Plant = plant,
+            CompensatorType = type,
+            Requirements = new Requirements { MaxOvershootPercent = overshoot, MaxSettlingTime = settling },
+            Lead = new LeadOptions { Placement = LeadPlacement.Cancel, Zero = -plantPole },
+        });
+        Assert.True(run.IsSuccess, run.Problem?.Message);
+        var design = run.Report!.Design;
+        var characteristic = design.Loop.Characteristic(design.Compensator.TransferFunction);
+        Assert.Equal(exact, !characteristic.SharedRoots.IsEmpty);
+        var proof = run.Report.Proof;
+        Assert.True(proof.RootEvidence.MaxRelativeResidual <= 1e-9, $"largest residual {proof.RootEvidence.MaxRelativeResidual:G3}");
+        foreach (var shared in characteristic.SharedRoots)
+        {
+            Assert.Contains(shared, proof.Roots.Select(r => r.Value));
+        }
+
+        // The same measure rejects a root moved by 1e-3 of its size, so this test can fail.
+        foreach (var r in proof.Roots.Select(r => r.Value))
+        {
+            Assert.True(characteristic.RelativeResidual(r) <= 1e-9, $"root {r}: {characteristic.RelativeResidual(r):G3}");
+            var moved = r * (1 + 1e-3);
+            Assert.True(characteristic.RelativeResidual(moved) >= 1e-6, $"moved root {moved}: {characteristic.RelativeResidual(moved):G3}");
+        }
     }
 }
