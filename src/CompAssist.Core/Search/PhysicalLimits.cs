@@ -12,7 +12,7 @@ namespace CompAssist.Core.Search;
 /// (Goodwin, Graebe and Salgado, Control System Design, ch. 8); an unstable pole p needs a crossover of at
 /// least about 2p; a delay θ bounds the crossover to about 1/θ; a zero z and a pole p in the right half-plane
 /// together force Ms ≥ |z + p|/|z − p| (Skogestad and Postlethwaite, Multivariable Feedback Control, 2nd ed.,
-/// ch. 5); an actuator limit caps how fast the output can move.
+/// ch. 5); two or more integrators force overshoot; an actuator limit caps how fast the output can move.
 /// </summary>
 internal static class PhysicalLimits
 {
@@ -60,6 +60,12 @@ internal static class PhysicalLimits
         {
             var (z, p) = (rhpZeros[0], rhpPoles[0]);
             notes.Add($"the right-half-plane zero {F(z)} and pole {F(p)} together force Ms ≥ |z + p|/|z − p| = {F(Math.Abs(z + p) / Math.Abs(z - p))} (Skogestad–Postlethwaite, 2nd ed., ch. 5)");
+        }
+
+        var integrators = gh.Poles.Count(p => p == System.Numerics.Complex.Zero) + closest.Design.Compensator.TransferFunction.Poles.Count(p => p == System.Numerics.Complex.Zero);
+        if (integrators >= 2 && closest.Checks.Any(r => r.Name == RequirementChecks.Overshoot && r.Passes == false))
+        {
+            notes.Add($"the loop has {integrators} integrators: with two or more the error of a unit-feedback step integrates to zero, so the step must overshoot (common practice); a reference prefilter, not the loop, removes that overshoot");
         }
 
         if (check.ActuatorLimit is { } limit)
