@@ -24,7 +24,7 @@ internal static class Bisection
                 return m;
             }
 
-            if (Math.Sign(fm) == Math.Sign(fa))
+            if (Sign(fm) == Sign(fa))
             {
                 (a, fa) = (m, fm);
             }
@@ -36,4 +36,7 @@ internal static class Bisection
 
         return 0.5 * (a + b);
     }
+
+    /// <summary>The sign of x as −1, 0 or 1, with NaN as 0 (Math.Sign throws on NaN): a failed evaluation never crashes a solver.</summary>
+    public static int Sign(double x) => x > 0 ? 1 : x < 0 ? -1 : 0;
 }

@@ -47,7 +47,7 @@ public static class MarginAnalyzer
         {
             var (w0, m0, p0) = grid[i - 1];
             var (w1, m1, p1) = grid[i];
-            if (Math.Sign(m0) != Math.Sign(m1) && !double.IsNaN(m0) && !double.IsNaN(m1))
+            if (Bisection.Sign(m0) != Bisection.Sign(m1) && !double.IsNaN(m0) && !double.IsNaN(m1))
             {
                 var x = Bisect(u => LogMagnitudeAndPhase(open, u).LogMagnitude, w0, w1);
                 gains.Add(Gain(x, LogMagnitudeAndPhase(open, x).Phase));
@@ -55,7 +55,7 @@ public static class MarginAnalyzer
 
             var a = WrappedFromMinus180(p0);
             var b = WrappedFromMinus180(p1);
-            if (Math.Sign(a) != Math.Sign(b) && Math.Abs(a - b) < Math.PI)
+            if (Bisection.Sign(a) != Bisection.Sign(b) && Math.Abs(a - b) < Math.PI)
             {
                 var x = Bisect(u => WrappedFromMinus180(LogMagnitudeAndPhase(open, u).Phase), w0, w1);
                 var (logMag, phase) = LogMagnitudeAndPhase(open, x);

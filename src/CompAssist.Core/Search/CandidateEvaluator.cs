@@ -31,6 +31,11 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
 
         var design = outcome.Value;
         var c = design.Compensator.TransferFunction;
+        if (!loop.RationalOpenLoop(c).IsProper)
+        {
+            return null; // more zeros than poles around the loop: no finite closed loop to prove
+        }
+
         ImmutableArray<Complex> roots;
         try
         {

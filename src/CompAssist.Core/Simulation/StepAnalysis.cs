@@ -1,3 +1,4 @@
+using CompAssist.Core.Numerics;
 using System.Numerics;
 
 namespace CompAssist.Core.Simulation;
@@ -257,7 +258,7 @@ public static class StepAnalysis
         {
             var mid = 0.5 * (lo + hi);
             var fm = Hermite(tr, k, mid) - level;
-            if (Math.Sign(fm) == Math.Sign(flo))
+            if (Bisection.Sign(fm) == Bisection.Sign(flo))
             {
                 (lo, flo) = (mid, fm);
             }
@@ -283,11 +284,11 @@ public static class StepAnalysis
         var b = tr.Time(k + 1);
         var fa = tr.Slope(k);
         var fb = tr.Slope(k + 1);
-        if (Math.Sign(fa) == Math.Sign(fb))
+        if (Bisection.Sign(fa) == Bisection.Sign(fb))
         {
             // Two turns inside the interval: split at the guess, where the slope has the other sign.
             var fg = tr.At(guess).Slope;
-            if (Math.Sign(fg) == Math.Sign(fa))
+            if (Bisection.Sign(fg) == Bisection.Sign(fa))
             {
                 return guess;
             }
@@ -312,7 +313,7 @@ public static class StepAnalysis
                 return t;
             }
 
-            if (Math.Sign(ft) == Math.Sign(fa))
+            if (Bisection.Sign(ft) == Bisection.Sign(fa))
             {
                 (a, fa) = (t, ft);
             }

@@ -34,7 +34,7 @@ public static class LeadDesigner
         ArgumentNullException.ThrowIfNull(target);
         ArgumentNullException.ThrowIfNull(options);
         var s = target.Point;
-        var refusal = CheckTarget(loop, s);
+        var refusal = TargetCheck.Refusal(loop, s);
         if (refusal is not null)
         {
             return Outcome<Design>.Refused(refusal);
@@ -126,35 +126,6 @@ public static class LeadDesigner
     /// <summary>The real point that sees s under the angle θ (radians, in (0, π)).</summary>
     public static double PointSeenUnder(Complex s, double theta) => s.Real - (s.Imaginary * Math.Cos(theta) / Math.Sin(theta));
 
-    private static Problem? CheckTarget(Loop loop, Complex s)
-    {
-        if (s.Real >= 0)
-        {
-            return new Problem(
-                $"The target {TransferFunctionFormatter.Complex(s, 4)} is not in the left half-plane; a closed-loop pole there is unstable or undamped",
-                "Choose a target with a negative real part (e.g. from overshoot and settling-time requirements).");
-        }
-
-        if (s.Imaginary <= 0)
-        {
-            return new Problem(
-                "The target is on the real axis; the lead angle construction needs a complex target",
-                "Give a target with ωd > 0, or requirements that imply overshoot.");
-        }
-
-        var open = loop.PlantTimesFeedback;
-        foreach (var (root, what) in open.Poles.Select(p => (p, "pole")).Concat(open.Zeros.Select(z => (z, "zero"))))
-        {
-            if (Complex.Abs(root - s) <= 1e-9 * Math.Max(1.0, Complex.Abs(s)))
-            {
-                return new Problem(
-                    $"The target coincides with an open-loop {what} at {TransferFunctionFormatter.Complex(root, 4)}; the angle condition is undefined there",
-                    "Move the target slightly, or change the requirements.");
-            }
-        }
-
-        return null;
-    }
 
     private static Outcome<PlacedStage> Place(Loop loop, Complex s, double perStageDegrees, int stages, LeadOptions options)
     {

@@ -56,7 +56,7 @@ public static class Synthesizer
     /// <summary>A lag or a PI on its own: valid only where the target is (nearly) on the uncompensated locus.</summary>
     private static Outcome<Design> SlowOnly(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement, CompensatorKind kind, string why, string hint)
     {
-        var check = CheckTarget(loop, target);
+        var check = TargetCheck.Refusal(loop, target.Point);
         if (check is not null)
         {
             return Outcome<Design>.Refused(check);
@@ -81,7 +81,7 @@ public static class Synthesizer
     /// </summary>
     private static Outcome<Design> EqualFactorLeadLag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
-        var check = CheckTarget(loop, target);
+        var check = TargetCheck.Refusal(loop, target.Point);
         if (check is not null)
         {
             return Outcome<Design>.Refused(check);
@@ -184,7 +184,7 @@ public static class Synthesizer
 
     private static Outcome<Design> Pd(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
-        var check = CheckTarget(loop, target);
+        var check = TargetCheck.Refusal(loop, target.Point);
         if (check is not null)
         {
             return Outcome<Design>.Refused(check);
@@ -210,7 +210,7 @@ public static class Synthesizer
 
     private static Outcome<Design> Pid(Loop loop, TargetPole target, LeadOptions lead, SlowPoleOptions slow, ErrorRequirement? requirement)
     {
-        var check = CheckTarget(loop, target);
+        var check = TargetCheck.Refusal(loop, target.Point);
         if (check is not null)
         {
             return Outcome<Design>.Refused(check);
@@ -341,28 +341,6 @@ public static class Synthesizer
 
         var value = Proof.ErrorConstants.Of(loop, outcome.Value.Compensator.TransferFunction).ValueOf(requirement.Kind);
         return Outcome<Design>.Success(outcome.Value with { SteadyState = new SteadyStateResult(requirement, value, value) });
-    }
-
-    private static Problem? CheckTarget(Loop loop, TargetPole target)
-    {
-        var s = target.Point;
-        if (s.Real >= 0)
-        {
-            return new Problem($"The target {TransferFunctionFormatter.Complex(s, 4)} is not in the left half-plane", "Choose a target with a negative real part.");
-        }
-
-        if (s.Imaginary <= 0)
-        {
-            return new Problem("The target is on the real axis; these constructions need a complex target", "Give a target with ωd > 0.");
-        }
-
-        var open = loop.PlantTimesFeedback;
-        if (open.Poles.Concat(open.Zeros).Any(r => System.Numerics.Complex.Abs(r - s) <= 1e-9 * Math.Max(1.0, s.Magnitude)))
-        {
-            return new Problem("The target coincides with an open-loop pole or zero; the angle condition is undefined there", "Move the target slightly.");
-        }
-
-        return null;
     }
 
     private static string F(double x) => TransferFunctionFormatter.Number(x, 4);

@@ -180,6 +180,14 @@ public static class DesignWorkflow
 
     private static DesignRun Prove(CaseFile input, Loop loop, TargetSelection selection, Design design, SearchOutcome? search)
     {
+        if (!loop.RationalOpenLoop(design.Compensator.TransferFunction).IsProper)
+        {
+            return DesignRun.Failed(new Problem(
+                "The compensated loop C·G·H has more zeros than poles, so its closed loop has roots at infinity",
+                "Add a derivative filter (a filter ratio of about 10), or use a lead instead of an ideal PD or PID.",
+                Setting.FilterRatio));
+        }
+
         try
         {
             var compensator = design.Compensator.TransferFunction;

@@ -72,6 +72,43 @@ public class InputFuzzTests
     }
 
     [Fact]
+    public void Search_FuzzedPlantsAndRequirements_ReportOrProblemNeverThrow()
+    {
+        // The search capped at 50 candidates (so that it stays fast) over fuzzed plants and requirements,
+        // contradictory and extreme ones included; a verdict must agree with its own rows.
+        var fuzzer = new InputFuzzer(int.Parse(Environment.GetEnvironmentVariable("COMPASSIST_FUZZ_SEED") ?? "11", System.Globalization.CultureInfo.InvariantCulture));
+        var random = new Random(5);
+        double[] overshoots = [0.001, 1, 10, 40, 99.9];
+        double[] times = [1e-6, 0.01, 1, 30, 1e6];
+        int designed = 0, answered = 0;
+        for (var i = 0; i < 150; i++)
+        {
+            var requirements = new CompAssist.Core.Targets.Requirements
+            {
+                MaxOvershootPercent = overshoots[random.Next(overshoots.Length)],
+                MaxSettlingTime = times[random.Next(times.Length)],
+                MinPhaseMarginDegrees = random.NextDouble() < 0.3 ? 45 : null,
+            };
+            var input = new CaseFile { Plant = i % 3 == 0 ? "4/(s(s+2))" : fuzzer.Next(), Requirements = requirements, CompensatorType = DesignWorkflow.SupportedTypes[random.Next(DesignWorkflow.SupportedTypes.Count)] };
+            var run = DesignWorkflow.Search(input, new CompAssist.Core.Search.SearchOptions { MaxCandidates = 50 });
+            if (run.IsSuccess)
+            {
+                designed++;
+                var verdict = run.Report!.Verdict;
+                Assert.Equal(run.Report.Check.Stable && run.Report.Check.Checks.All(c => c.Passes != false), verdict.Meets);
+            }
+            else
+            {
+                answered++;
+                Assert.True(run.FieldError is not null || !string.IsNullOrWhiteSpace(run.Problem?.Hint));
+            }
+        }
+
+        // Both outcomes must occur, or the generator is not testing the search.
+        Assert.True(designed > 10 && answered > 10, $"designed {designed}, answered {answered}");
+    }
+
+    [Fact]
     public void Read_TwoThousandMutatedCaseFiles_NeverThrow()
     {
         const string valid = "format = 1\nname = \"x\"\n[loop]\nplant = \"4/(s(s+2))\"\nfeedback = \"1\"\nsign = \"negative\"\n[requirements]\novershoot_percent = 10\nsettling_time = 2\n[compensator]\ntype = \"lead\"\nplacement = \"bisector\"\n[check]\nvary = [\"gain=20%\"]\n";
