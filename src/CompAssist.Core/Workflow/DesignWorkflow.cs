@@ -37,34 +37,10 @@ public static class DesignWorkflow
     public static DesignRun Run(CaseFile input)
     {
         ArgumentNullException.ThrowIfNull(input);
-        if (input.Plant is null)
+        var (loop, kind, failure) = Prepare(input);
+        if (failure is not null)
         {
-            return DesignRun.Failed(new Problem("No plant is given", "Give the plant G(s), e.g. 10/(s(s+2)).", Setting.Plant));
-        }
-
-        var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
-        if (loopResult.FieldError is { } fe)
-        {
-            return DesignRun.Failed(fe);
-        }
-
-        if (loopResult.Problem is { } lp)
-        {
-            return DesignRun.Failed(lp);
-        }
-
-        var loop = loopResult.Loop!;
-        if (KindOf(input.CompensatorType) is not { } kind)
-        {
-            return DesignRun.Failed(new Problem(
-                $"Compensator type '{input.CompensatorType}' is not available in this version",
-                $"Use one of: {string.Join(", ", SupportedTypes)}."));
-        }
-
-        var optionsProblem = kind is CompensatorKind.Lead or CompensatorKind.LeadLag ? CheckLeadOptions(input.Lead) : null;
-        if (optionsProblem is not null)
-        {
-            return DesignRun.Failed(optionsProblem);
+            return failure;
         }
 
         var selection = TargetSelector.Select(input.Requirements);
@@ -117,32 +93,15 @@ public static class DesignWorkflow
     {
         ArgumentNullException.ThrowIfNull(input);
         ArgumentNullException.ThrowIfNull(options);
-        if (!Searches(input) || input.Plant is null)
+        if (!Searches(input))
         {
             return Run(input);
         }
 
-        var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
-        if (loopResult.FieldError is { } fe)
+        var (loop, kind, failure) = Prepare(input);
+        if (failure is not null)
         {
-            return DesignRun.Failed(fe);
-        }
-
-        if (loopResult.Problem is { } lp)
-        {
-            return DesignRun.Failed(lp);
-        }
-
-        var loop = loopResult.Loop!;
-        if (KindOf(input.CompensatorType) is not { } kind)
-        {
-            return Run(input);
-        }
-
-        var optionsProblem = kind is CompensatorKind.Lead or CompensatorKind.LeadLag ? CheckLeadOptions(input.Lead) : null;
-        if (optionsProblem is not null)
-        {
-            return DesignRun.Failed(optionsProblem);
+            return failure;
         }
 
         // Only an overshoot bound: the region is the ζ wedge; its reference speed is where the ζ ray meets
@@ -176,6 +135,36 @@ public static class DesignWorkflow
         var source = $"searched: the best of {outcome.Evaluated} candidates over the region and 30 % beyond ({SearchObjectiveNames.Meaning(outcome.Objective)}){(outcome.Meets ? string.Empty : "; none meets every requirement, this is the closest")}";
         var searched = input with { Lead = winner.Choice.Lead, Slow = winner.Choice.Slow };
         return Prove(searched, loop, selection.Value with { Source = source }, winner.Design, outcome);
+    }
+
+    /// <summary>The loop, the kind and the kind's options checked: what both the corner design and the search need first.</summary>
+    private static (Loop Loop, CompensatorKind Kind, DesignRun? Failure) Prepare(CaseFile input)
+    {
+        if (input.Plant is null)
+        {
+            return (null!, default, DesignRun.Failed(new Problem("No plant is given", "Give the plant G(s), e.g. 10/(s(s+2)).", Setting.Plant)));
+        }
+
+        var loopResult = BuildLoop(input.Plant, input.Feedback, input.Sign, input.PadeOrder);
+        if (loopResult.FieldError is { } fe)
+        {
+            return (null!, default, DesignRun.Failed(fe));
+        }
+
+        if (loopResult.Problem is { } lp)
+        {
+            return (null!, default, DesignRun.Failed(lp));
+        }
+
+        if (KindOf(input.CompensatorType) is not { } kind)
+        {
+            return (null!, default, DesignRun.Failed(new Problem(
+                $"Compensator type '{input.CompensatorType}' is not available in this version",
+                $"Use one of: {string.Join(", ", SupportedTypes)}.")));
+        }
+
+        var optionsProblem = kind is CompensatorKind.Lead or CompensatorKind.LeadLag ? CheckLeadOptions(input.Lead) : null;
+        return optionsProblem is not null ? (null!, kind, DesignRun.Failed(optionsProblem)) : (loopResult.Loop!, kind, null);
     }
 
     private static DesignRun Prove(CaseFile input, Loop loop, TargetSelection selection, Design design, SearchOutcome? search)

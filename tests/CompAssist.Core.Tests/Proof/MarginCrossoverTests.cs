@@ -16,7 +16,7 @@ namespace CompAssist.Core.Tests.Proof;
 /// </summary>
 public class MarginCrossoverTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, false).Value!;
 
     /// <summary>L(jω) by Horner on expanded coefficients, sign folded in.</summary>
     private static Complex Horner(Loop loop, TransferFunction c, double w)
@@ -76,8 +76,8 @@ public class MarginCrossoverTests
     {
         // A ζ = 0.02 mode at 10 rad/s lifts |L| above 1 again beside the resonance: three gain crossovers. The
         // loop is stable (closed-loop roots), so the smallest distance to −1 is the one beside the resonance.
-        var loop = Loop.Create(Tf("100/(s(s+1)(s^2+0.4s+100))"));
-        var c = Tf("6(s+0.5)(s+0.7)/((s+5)(s+7))");
+        var loop = Loop.Create(FromText("100/(s(s+1)(s^2+0.4s+100))"));
+        var c = FromText("6(s+0.5)(s+0.7)/((s+5)(s+7))");
         Assert.All(RootFinder.Find(loop.Characteristic(c)).Roots, r => Assert.True(r.Real < 0));
         var m = MarginAnalyzer.Analyze(loop, c);
 
@@ -115,7 +115,7 @@ public class MarginCrossoverTests
         // L = 4/(s − 1): stable closed loop (root −3); L(0) = −4 is real and negative, so ω = 0 is a phase
         // crossover and the gain may fall by 20·log10 4 before the root reaches s = 0. The gain crossover is
         // at √15 with 180° + ∠L = atan √15 (closed forms).
-        var loop = Loop.Create(Tf("4/(s-1)"));
+        var loop = Loop.Create(FromText("4/(s-1)"));
         var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
         Tolerance.Close(20 * Math.Log10(4), m.GainReductionMarginDb, 1e-12);
         Assert.Equal(0.0, m.GainReductionCrossover);
@@ -131,8 +131,8 @@ public class MarginCrossoverTests
     {
         // An unstable plant with a lead: the gain may rise (phase crossover at high frequency) and may fall
         // (at DC); each factor puts a closed-loop root on the imaginary axis where the margin says.
-        var loop = Loop.Create(Tf("1/((s-1)(s+4))"));
-        var c = Tf("30(s+2)/(s+12)");
+        var loop = Loop.Create(FromText("1/((s-1)(s+4))"));
+        var c = FromText("30(s+2)/(s+12)");
         Assert.All(RootFinder.Find(loop.Characteristic(c)).Roots, r => Assert.True(r.Real < 0));
         var m = MarginAnalyzer.Analyze(loop, c);
         Assert.True(double.IsFinite(m.GainReductionMarginDb), "downward margin");
@@ -148,7 +148,7 @@ public class MarginCrossoverTests
     {
         // G = −4/(s(s+2)) with positive feedback is the loop L = 4/(s(s+2)): ωc² = −2 + √20 and
         // 180° + ∠L = 90° − atan(ωc/2) (closed form).
-        var loop = Loop.Create(Tf("-4/(s(s+2))"), null, FeedbackSign.Positive);
+        var loop = Loop.Create(FromText("-4/(s(s+2))"), null, FeedbackSign.Positive);
         var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
         var wc = Math.Sqrt(-2 + Math.Sqrt(20));
         Tolerance.Close(wc, m.GainCrossover, 1e-10);

@@ -17,7 +17,7 @@ namespace CompAssist.Core.Tests.Search;
 /// </summary>
 public class DesignSearchTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, false).Value!;
 
     private static Common.Outcome<SearchOutcome> TrySearch(Loop loop, Requirements r, SearchOptions? options = null) =>
         DesignSearch.Run(loop, r, CompensatorKind.Lead, new LeadOptions(), new SlowPoleOptions(), new CheckOptions(), [], options ?? new SearchOptions());
@@ -43,7 +43,7 @@ public class DesignSearchTests
     [Fact]
     public void Run_SameCaseOnOneThreadAndOnAll_SameWinner()
     {
-        var loop = Loop.Create(Tf("25/(s(s+5))"));
+        var loop = Loop.Create(FromText("25/(s(s+5))"));
         var r = new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 1.2 };
         var one = Search(loop, r, new SearchOptions { MaxParallelism = 1 });
         var all = Search(loop, r);
@@ -57,7 +57,7 @@ public class DesignSearchTests
     public void Run_UnstablePlantWhoseCornerNeedsLag_FindsALeadThatMeets()
     {
         // The corner of this region needs phase lag, which a lead cannot give; faster targets need none.
-        var loop = Loop.Create(Tf("10/((s-1)(s+10))"));
+        var loop = Loop.Create(FromText("10/((s-1)(s+10))"));
         var r = new Requirements { MaxOvershootPercent = 15, MaxSettlingTime = 2 };
         var corner = TargetSelector.Select(r).Value!.Target;
         Assert.False(Synthesizer.Design(loop, corner, CompensatorKind.Lead, new LeadOptions(), new SlowPoleOptions(), null).IsSuccess);
@@ -74,7 +74,7 @@ public class DesignSearchTests
     {
         // A zero at +1 forces an undershoot of at least (1 − δ)/(e^(z·ts) − 1) to settle by ts
         // (Goodwin, Graebe and Salgado, Control System Design, ch. 8): far beyond reach for ts = 0.3 s.
-        var loop = Loop.Create(Tf("(1 - s)/(s(s+2))"));
+        var loop = Loop.Create(FromText("(1 - s)/(s(s+2))"));
         var found = Search(loop, new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 0.3 });
         Assert.False(found.Meets);
         Assert.Contains(found.Limits, l => l.Contains("right-half-plane zero at 1", StringComparison.Ordinal));

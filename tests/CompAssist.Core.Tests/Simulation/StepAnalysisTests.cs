@@ -19,7 +19,7 @@ namespace CompAssist.Core.Tests.Simulation;
 /// </summary>
 public class StepAnalysisTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+    private static TransferFunction FromText(string text) => ExpressionParser.Parse(text, false).Value!;
 
     private static (LoopCheckReport Check, TransferFunction Output, ImmutableArray<Complex> Roots) Prove(Loop loop, TransferFunction c, Requirements? requirements = null)
     {
@@ -52,7 +52,7 @@ public class StepAnalysisTests
     {
         // G = −4/(s(s+2)) with positive feedback: T = −4/(s² + 2s + 4), ζ = 0.5, ωn = 2, final value −1.
         // Overshoot e^(−πζ/√(1−ζ²)) = 16.303 % toward −1 (common practice), peak time π/ωd = π/√3.
-        var loop = Loop.Create(Tf("-4/(s(s+2))"), null, FeedbackSign.Positive);
+        var loop = Loop.Create(FromText("-4/(s(s+2))"), null, FeedbackSign.Positive);
         var (check, _, _) = Prove(loop, TransferFunction.Unity, new Requirements { MaxOvershootPercent = 5 });
         var zeta = 0.5;
         Tolerance.Close(-1.0, check.Step.FinalValue, 1e-12);
@@ -67,8 +67,8 @@ public class StepAnalysisTests
     {
         // A lag dipole at −1/300 beside a rise of about a second: the horizon is thousands of seconds,
         // the peak and rise must still come out to 0.1 %.
-        var loop = Loop.Create(Tf("4/(s(s+2))"));
-        var (check, output, _) = Prove(loop, Tf("1.2(s+0.00333)/(s+0.000333)"));
+        var loop = Loop.Create(FromText("4/(s(s+2))"));
+        var (check, output, _) = Prove(loop, FromText("1.2(s+0.00333)/(s+0.000333)"));
         Assert.True(check.Step.Horizon > 2000, $"horizon {check.Step.Horizon}");
         AssertMatchesPartialFractions(check.Step, output, "lag tail");
         Assert.True(check.TailContinues);
@@ -79,8 +79,8 @@ public class StepAnalysisTests
     public void Measure_NonMinimumPhasePlant_ReportsUndershootAndMatchesPartialFractions()
     {
         // A right-half-plane zero at +1 dips the step the wrong way first.
-        var loop = Loop.Create(Tf("(1 - s)/((s+1)(s+3))"));
-        var (check, output, _) = Prove(loop, Tf("1.5"));
+        var loop = Loop.Create(FromText("(1 - s)/((s+1)(s+3))"));
+        var (check, output, _) = Prove(loop, FromText("1.5"));
         Assert.True(check.Step.UndershootPercent > 1, $"undershoot {check.Step.UndershootPercent}");
         AssertMatchesPartialFractions(check.Step, output, "right-half-plane zero");
     }
@@ -89,7 +89,7 @@ public class StepAnalysisTests
     public void Measure_LongerHorizon_SameFigures()
     {
         // The figures belong to the solution, not to the grid: three times the horizon changes nothing.
-        var output = Tf("(s+0.5)/((s+0.05)(s^2+1.2s+9))");
+        var output = FromText("(s+0.5)/((s+0.05)(s^2+1.2s+9))");
         var system = CascadeRealization.Of(output);
         var a = StepAnalysis.Measure(system, output.Poles, output.DcGain, 200);
         var b = StepAnalysis.Measure(system, output.Poles, output.DcGain, 600);
@@ -119,7 +119,7 @@ public class StepAnalysisTests
     [Fact]
     public void Measure_NoOvershoot_PeakTimeIsNone()
     {
-        var output = Tf("6/((s+1)(s+2)(s+3))");
+        var output = FromText("6/((s+1)(s+2)(s+3))");
         var m = StepAnalysis.Measure(CascadeRealization.Of(output), output.Poles, 1.0, 20);
         Assert.Equal(0.0, m.OvershootPercent);
         Assert.True(double.IsPositiveInfinity(m.PeakTime));
