@@ -30,8 +30,9 @@ public static class LoopCheck
         ArgumentNullException.ThrowIfNull(loop);
         ArgumentNullException.ThrowIfNull(compensator);
         ArgumentNullException.ThrowIfNull(options);
-        var stable = closedLoopPoles.All(r => r.Real < 0);
-        var unstableRoots = closedLoopPoles.Count(r => r.Real >= 0);
+        var judgement = ClosedLoopStability.Judge(loop, compensator, closedLoopPoles);
+        var stable = judgement.Stable;
+        var unstableRoots = judgement.UnstableRootCount;
         var transfers = ClosedLoopTransfers.Of(loop, compensator, closedLoopPoles);
         var horizon = Horizon(closedLoopPoles);
         var outputSystem = CascadeRealization.Of(transfers.Output);
@@ -52,9 +53,17 @@ public static class LoopCheck
         var effortFigures = Effort(effortSystem, closedLoopPoles, horizon, options);
 
         var warnings = ImmutableArray.CreateBuilder<string>();
+        if (judgement.Note is { } note)
+        {
+            warnings.Add(note);
+        }
+
         if (!stable)
         {
-            warnings.Add($"The closed loop is UNSTABLE: {unstableRoots} closed-loop root{(unstableRoots == 1 ? " is" : "s are")} in the right half-plane or on the imaginary axis. The step grows without bound, no margins are claimed and no requirement passes.");
+            var growth = closedLoopPoles.Any(r => r.Real >= 0)
+                ? "The step grows without bound"
+                : "The step shown is that of the Padé approximant, which does not show the growth";
+            warnings.Add($"The closed loop is UNSTABLE: {unstableRoots} closed-loop root{(unstableRoots == 1 ? " is" : "s are")} in the right half-plane or on the imaginary axis. {growth}; no margins are claimed and no requirement passes.");
         }
 
         if (stable && double.IsPositiveInfinity(metrics.SettlingTime2Percent))

@@ -58,10 +58,16 @@ public static class LoopProver
 
         var others = roots.Where(r => r.Role == RootRole.Other).ToList();
         var dominance = others.Count == 0 ? double.PositiveInfinity : others.Min(r => -r.Value.Real) / target.Sigma;
-        var stable = evidence.Roots.All(r => r.Real < 0);
+        var judgement = ClosedLoopStability.Judge(loop, compensator, evidence.Roots);
+        var stable = judgement.Stable;
 
         var warnings = ImmutableArray.CreateBuilder<string>();
-        if (!stable)
+        if (judgement.Note is { } note)
+        {
+            warnings.Add(note);
+        }
+
+        if (evidence.Roots.Any(r => r.Real >= 0))
         {
             var bad = evidence.Roots.Where(r => r.Real >= 0).Select(r => TransferFunctionFormatter.Complex(r, 4));
             warnings.Add($"UNSTABLE: closed-loop pole(s) at {string.Join(", ", bad)} have non-negative real part. Do not use this design.");

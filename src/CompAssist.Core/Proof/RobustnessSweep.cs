@@ -98,7 +98,7 @@ public static class RobustnessSweep
         {
             var roots = RootFinder.Find(varied.Characteristic(compensator)).Roots;
             var leastDamping = roots.Min(r => r.Magnitude == 0 ? 0.0 : -r.Real / r.Magnitude);
-            if (roots.Any(r => r.Real >= 0))
+            if (!ClosedLoopStability.Judge(varied, compensator, roots).Stable)
             {
                 return Unstable(factors, leastDamping, requirements);
             }

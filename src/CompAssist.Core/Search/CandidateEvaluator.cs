@@ -46,8 +46,9 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
             return null;
         }
 
-        var unstable = roots.Count(r => r.Real >= 0);
-        if (unstable > 0)
+        var judgement = ClosedLoopStability.Judge(loop, c, roots);
+        var unstable = judgement.UnstableRootCount;
+        if (!judgement.Stable)
         {
             return new SearchCandidate(choice, design, false, false, 1000.0 + unstable, double.PositiveInfinity, [], order);
         }

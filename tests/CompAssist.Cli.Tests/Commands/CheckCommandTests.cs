@@ -72,6 +72,25 @@ public class CheckCommandTests
         Assert.All(doc.RootElement.GetProperty("check").GetProperty("requirements").EnumerateArray(), r => Assert.False(r.TryGetProperty("passes", out var p) && p.GetBoolean()));
     }
 
+    [Theory]
+    [InlineData("357.21 exp(-1s)/((s+1)(s^2+0.378s+357.21))", "1", "3", false)]
+    [InlineData("exp(-1s)/(s+1)", "2.5", "1", false)] // above the critical gain √(1 + ω²) ≈ 2.262, tan ω = −ω
+    [InlineData("exp(-1s)/(s+1)", "2.2", "1", true)]
+    public void Check_DelayLoop_StabilityJudgedWithTheExactDelay(string plant, string compensator, string pade, bool stable)
+    {
+        // The low-order Padé approximants of these loops have only left-half-plane roots; the exact delay decides.
+        var (code, output, error) = CliRunner.Run("check", "--plant", plant, "--compensator", compensator, "--pade-order", pade, "--json");
+        using var doc = JsonDocument.Parse(output);
+        CliRunner.AssertProvedExitCode(code, doc.RootElement, error);
+        Assert.Equal(stable, doc.RootElement.GetProperty("check").GetProperty("stable").GetBoolean());
+        Assert.Equal(stable ? 0 : 4, code);
+        if (!stable)
+        {
+            Assert.Equal(2, doc.RootElement.GetProperty("check").GetProperty("unstableRoots").GetInt32());
+            Assert.Equal("unstable", doc.RootElement.GetProperty("verdict").GetProperty("status").GetString());
+        }
+    }
+
     public static TheoryData<string[], int, string> BadCommandLines() => new()
     {
         { ["check", "--plant", "1/s"], 2, "error: no compensator given" },

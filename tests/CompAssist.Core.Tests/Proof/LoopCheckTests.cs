@@ -71,4 +71,21 @@ public class LoopCheckTests
         var slowest = report.Step.Horizon;
         Assert.True(slowest > 8.0 / 0.06, $"horizon {slowest}");
     }
+
+    [Fact]
+    public void Run_DelayLoopUnstableOnlyWithExactDelay_IsUnstableAndSaysWhy()
+    {
+        // K e^(−s)/(s + 1) is unstable above K* = √(1 + ω²) ≈ 2.262 (tan ω = −ω, common practice); the Padé
+        // approximant of order 1 keeps its roots in the left half-plane up to K = 3.
+        var loop = Loop.Create(FromText("exp(-1s)/(s+1)"), padeOrder: 1);
+        var c = TransferFunction.Constant(2.5);
+        var roots = Core.Numerics.RootFinder.Find(loop.Characteristic(c)).Roots;
+        Assert.All(roots, r => Assert.True(r.Real < 0));
+        var report = LoopCheck.Run(loop, c, roots, new CheckOptions(), new Requirements { MaxOvershootPercent = 50 });
+        Assert.False(report.Stable);
+        Assert.Equal(2, report.UnstableRootCount);
+        Assert.Null(report.Margins);
+        Assert.Contains(report.Warnings, w => w.Contains("exact delay", StringComparison.Ordinal) && w.Contains("Padé", StringComparison.Ordinal));
+        Assert.DoesNotContain(report.Checks, k => k.Passes == true);
+    }
 }
