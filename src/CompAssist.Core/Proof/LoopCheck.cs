@@ -34,11 +34,11 @@ public static class LoopCheck
         var stable = judgement.Stable;
         var unstableRoots = judgement.UnstableRootCount;
         var transfers = ClosedLoopTransfers.Of(loop, compensator, closedLoopPoles);
-        var horizon = Horizon(closedLoopPoles);
         var outputSystem = CascadeRealization.Of(transfers.Output);
         var effortSystem = transfers.Effort is { } e ? CascadeRealization.Of(e) : null;
         var final = stable ? transfers.Output.DcGain : double.NaN;
-        var trajectory = StepTrajectory.Simulate(outputSystem, closedLoopPoles, horizon);
+        var trajectory = StepAnalysis.SimulateToSettling(outputSystem, closedLoopPoles, final, Horizon(closedLoopPoles));
+        var horizon = trajectory.Horizon;
         var measured = StepAnalysis.Measure(trajectory, stable ? final : trajectory.Value(trajectory.Count - 1));
         var window = stable ? ShownWindow(measured, horizon) : horizon;
         var h = window / options.Intervals;

@@ -54,8 +54,8 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
         }
 
         var transfers = ClosedLoopTransfers.Of(loop, c, roots);
-        var horizon = LoopCheck.Horizon(roots);
-        var metrics = StepAnalysis.Measure(CascadeRealization.Of(transfers.Output), roots, transfers.Output.DcGain, horizon);
+        var metrics = StepAnalysis.Measure(CascadeRealization.Of(transfers.Output), roots, transfers.Output.DcGain, LoopCheck.Horizon(roots));
+        var horizon = metrics.Horizon;
         EffortFigures? effort = null;
         if (needsEffort)
         {

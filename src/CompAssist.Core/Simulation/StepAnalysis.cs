@@ -12,6 +12,9 @@ namespace CompAssist.Core.Simulation;
 /// </summary>
 public static class StepAnalysis
 {
+    /// <summary>How many times <see cref="SimulateToSettling"/> may double the horizon (64× at most).</summary>
+    public const int MaxHorizonDoublings = 6;
+
     private const double GrazeFraction = 0.02;
 
     /// <summary>Measures the unit-step response of <paramref name="system"/> over <paramref name="horizon"/> seconds.</summary>
@@ -20,7 +23,31 @@ public static class StepAnalysis
     /// <param name="finalValue">The final value to measure against (the DC gain for a stable system).</param>
     /// <param name="horizon">Simulated time, seconds.</param>
     public static StepMetrics Measure(StateSpace system, IReadOnlyCollection<Complex> poles, double finalValue, double horizon) =>
-        Measure(StepTrajectory.Simulate(system, poles, horizon), finalValue);
+        Measure(SimulateToSettling(system, poles, finalValue, horizon), finalValue);
+
+    /// <summary>
+    /// Simulates the unit step over <paramref name="horizon"/> seconds and, while a response with a finite,
+    /// non-zero final value is still outside the ±2 % band at the end (a slow pole with a large residue, which
+    /// eight of its time constants do not bring inside), doubles the horizon, up to
+    /// 2^<see cref="MaxHorizonDoublings"/> times, so that a settling time is measured rather than reported as
+    /// "not settled" for a loop that does settle.
+    /// </summary>
+    internal static StepTrajectory SimulateToSettling(StateSpace system, IReadOnlyCollection<Complex> poles, double finalValue, double horizon)
+    {
+        var tr = StepTrajectory.Simulate(system, poles, horizon);
+        if (!double.IsFinite(finalValue) || finalValue == 0)
+        {
+            return tr;
+        }
+
+        for (var i = 0; i < MaxHorizonDoublings && double.IsPositiveInfinity(Settling(tr, finalValue, 0.02).Time); i++)
+        {
+            horizon *= 2;
+            tr = StepTrajectory.Simulate(system, poles, horizon);
+        }
+
+        return tr;
+    }
 
     /// <summary>The largest |y| over the horizon and when it occurs (the actuator's peak command, say), exact.</summary>
     public static (double Peak, double Time) PeakMagnitude(StateSpace system, IReadOnlyCollection<Complex> poles, double horizon)

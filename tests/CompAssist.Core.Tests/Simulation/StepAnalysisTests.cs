@@ -161,6 +161,45 @@ public class StepAnalysisTests
         Assert.True(checkedCases > 30, $"only {checkedCases} cases checked");
     }
 
+    [Fact]
+    public void Measure_SlowPoleWithLargeResidue_HorizonExtendedUntilSettled()
+    {
+        // (s+0.001)/((s+1)(s+2)) under a gain of 10: closed-loop poles about −0.156 and −12.84, final value
+        // 0.01/2.01, and the slow pole's residue about 150 times that. Eight of its time constants (51 s) leave
+        // the step outside the ±2 % band; the exact settling time (partial fractions) is about 57 s.
+        var loop = Loop.Create(FromText("(s+0.001)/((s+1)(s+2))"));
+        var (check, output, roots) = Prove(loop, FromText("10"));
+        Assert.True(LoopCheck.Horizon(roots) < 55, $"base horizon {LoopCheck.Horizon(roots)}");
+        Assert.True(double.IsFinite(check.Step.SettlingTime2Percent), "settled");
+        Assert.InRange(check.Step.SettlingTime2Percent, 55.0, 60.0);
+        Assert.DoesNotContain(check.Warnings, w => w.Contains("not settled", StringComparison.Ordinal));
+        AssertMatchesPartialFractions(check.Step, output, "slow pole, large residue");
+    }
+
+    [Fact]
+    public void Measure_RandomLoopsWithAZeroNearTheOrigin_SettleAndMatchPartialFractions()
+    {
+        // A zero close to the origin makes the final value small beside the transient, so the slow pole's
+        // residue is many band widths: the class behind the example above.
+        var gen = Gen.Select(Gen.Double[-3.5, -1.5], Gen.Double[-0.5, 1.5].Array[2, 3], Gen.Double[0.5, 30.0]);
+        gen.Sample(
+            (logZero, logPoles, gain) =>
+            {
+                var plant = TransferFunction.FromFactors(1.0, [new Complex(-Math.Pow(10, logZero), 0)], [.. logPoles.Select((x, i) => new Complex(-Math.Pow(10, x) * (1 + (0.07 * i)), 0))]);
+                var loop = Loop.Create(plant);
+                var (check, output, roots) = Prove(loop, TransferFunction.FromFactors(gain, [], []));
+                if (!check.Stable || roots.Any(r => roots.Count(q => Complex.Abs(q - r) < 0.02 * Math.Max(r.Magnitude, 1e-9)) > 1))
+                {
+                    return;
+                }
+
+                var what = $"zero 10^{logZero:F2}, poles {string.Join(" ", plant.Poles)}, gain {gain:F2}";
+                Assert.True(double.IsFinite(check.Step.SettlingTime2Percent), what + " settled");
+                AssertMatchesPartialFractions(check.Step, output, what);
+            },
+            iter: 40);
+    }
+
     private static double ZetaForOvershoot(double percent)
     {
         var l = Math.Log(percent / 100);
