@@ -23,6 +23,7 @@ public static class MarginAnalyzer
     private const double MaxLogMagnitudeStep = 0.3;
     private const int MaxRefinementDepth = 16;
     private const int MaxGridPoints = 40_000;
+    private const double FlatLogMagnitude = 1e-9;
 
     /// <summary>Computes the margins of the loop with the compensator (sign folded in, delay exact).</summary>
     public static StabilityMargins Analyze(Loop loop, TransferFunction compensator)
@@ -43,14 +44,26 @@ public static class MarginAnalyzer
             phases.Add(dc);
         }
 
+        if (DcGainCrossing(open) is { } dcGain)
+        {
+            gains.Add(dcGain);
+        }
+
         for (var i = 1; i < grid.Count; i++)
         {
             var (w0, m0, p0) = grid[i - 1];
             var (w1, m1, p1) = grid[i];
-            if (Bisection.Sign(m0) != Bisection.Sign(m1) && !double.IsNaN(m0) && !double.IsNaN(m1))
+
+            // A sign change between two values of ln|L| both within rounding of zero is noise of a loop whose
+            // |L| stays at 1 (L(0) = 1, say), not a crossover; one exactly at a grid point is counted once.
+            var noise = Math.Abs(m0) < FlatLogMagnitude && Math.Abs(m1) < FlatLogMagnitude;
+            if (Bisection.Sign(m0) != Bisection.Sign(m1) && !double.IsNaN(m0) && !double.IsNaN(m1) && !noise)
             {
                 var x = Bisect(u => LogMagnitudeAndPhase(open, u).LogMagnitude, w0, w1);
-                gains.Add(Gain(x, LogMagnitudeAndPhase(open, x).Phase));
+                if (gains.Count == 0 || Math.Abs(x - gains[^1].Frequency) > 1e-9 * x)
+                {
+                    gains.Add(Gain(x, LogMagnitudeAndPhase(open, x).Phase));
+                }
             }
 
             var a = WrappedFromMinus180(p0);
@@ -139,6 +152,18 @@ public static class MarginAnalyzer
         return new GainCrossing(omega, phase, signed, Math.Abs(signed), Angles.ToRadians(lag) / omega);
     }
 
+    /// <summary>
+    /// ω = 0 is a gain crossover when L(0) is finite with |L(0)| = 1 (to rounding): the signed figure is that of
+    /// ∠L(0), and no extra delay moves L(0), so its delay margin is infinite.
+    /// </summary>
+    private static GainCrossing? DcGainCrossing(TransferFunction open)
+    {
+        var l0 = open.DcGain;
+        return double.IsFinite(l0) && l0 != 0 && Math.Abs(Math.Log(Math.Abs(l0))) < FlatLogMagnitude
+            ? Gain(0.0, l0 > 0 ? 0.0 : Math.PI) with { DelayMargin = double.PositiveInfinity }
+            : null;
+    }
+
     /// <summary>ω = 0 is a phase crossover when L(0) is finite, real and negative (an open-loop unstable plant, say).</summary>
     private static PhaseCrossing? DcCrossing(TransferFunction open)
     {
@@ -158,7 +183,7 @@ public static class MarginAnalyzer
             worst = Math.Max(worst, Residual(open, p.Frequency, p.GainFactor, 0.0));
         }
 
-        foreach (var g in gains)
+        foreach (var g in gains.Where(g => g.Frequency > 0 && double.IsFinite(g.DelayMargin)))
         {
             worst = Math.Max(worst, Residual(open, g.Frequency, 1.0, g.DelayMargin));
         }

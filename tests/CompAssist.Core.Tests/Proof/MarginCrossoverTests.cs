@@ -126,6 +126,40 @@ public class MarginCrossoverTests
         AssertRootOnAxisAtGain(loop, TransferFunction.Unity, Math.Pow(10, -m.GainReductionMarginDb / 20), 0.0);
     }
 
+    [Theory]
+    [InlineData("1/(s+1)")]
+    [InlineData("2/(s+2)")]
+    [InlineData("(s+3)/(3(s+1))")]
+    public void Analyze_UnitDcGainFallingAway_OneCrossoverAtDcWithNoDelayLimit(string plant)
+    {
+        // |L(0)| = 1 and |L(jω)| < 1 for every ω > 0: the only gain crossover is ω = 0, where 180° + ∠L = 180°;
+        // no extra delay moves L(0), and by the small-gain argument (common practice) the loop stays stable
+        // for any delay, so the delay margin is infinite. Rounding noise of ln|L| ≈ 0 near ω = 0 must not be
+        // listed as crossovers.
+        var loop = Loop.Create(FromText(plant));
+        var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
+        var crossing = Assert.Single(m.GainCrossings);
+        Assert.Equal(0.0, crossing.Frequency);
+        Tolerance.Close(180.0, crossing.SignedMarginDegrees, 1e-12);
+        Tolerance.Close(180.0, m.PhaseMarginDeg, 1e-12);
+        Assert.True(double.IsPositiveInfinity(m.DelayMargin), $"delay margin {m.DelayMargin}");
+        Assert.True(m.SelfCheckResidual < 1e-9, $"self check {m.SelfCheckResidual}");
+    }
+
+    [Fact]
+    public void Analyze_UnitDcGainRisingFirst_CrossoversAtDcAndWhereTheModeFallsBack()
+    {
+        // L = 1/(s² + s + 1): |L(jω)|² = 1/(1 − ω² + ω⁴) is 1 at ω = 0 and ω = 1 and above 1 between (closed
+        // form). At ω = 1, ∠L = −90°: phase margin 90°, delay margin (π/2)/1 s.
+        var loop = Loop.Create(FromText("1/(s^2+s+1)"));
+        var m = MarginAnalyzer.Analyze(loop, TransferFunction.Unity);
+        Assert.Equal(2, m.GainCrossings.Length);
+        Assert.Equal(0.0, m.GainCrossings[0].Frequency);
+        Tolerance.Close(1.0, m.GainCrossings[1].Frequency, 1e-9);
+        Tolerance.Close(90.0, m.PhaseMarginDeg, 1e-7);
+        Tolerance.Close(Math.PI / 2, m.DelayMargin, 1e-8);
+    }
+
     [Fact]
     public void Analyze_UnstablePoleWithLead_BothDirectionsCloseOnTheAxis()
     {
