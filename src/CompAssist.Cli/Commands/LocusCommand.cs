@@ -43,7 +43,7 @@ internal static class LocusCommand
                 return CliApplication.Refused;
             }
 
-            stdout.Write(parse.GetValue(loop.Json) ? LocusReport.RenderJson(result) + Environment.NewLine : LocusReport.RenderText(result, built, loop.Style(parse)));
+            stdout.Write(parse.GetValue(loop.Json) ? LocusReport.RenderJson(result) + Environment.NewLine : LocusReport.RenderText(result, built, read.Compensator, loop.Style(parse)));
             return CliApplication.Success;
         });
         return command;

@@ -7,11 +7,18 @@ namespace CompAssist.Core.Locus;
 
 /// <summary>
 /// The exact features of a locus of D + K·g·N = 0 (common practice): asymptotes, real-axis segments,
-/// break points (roots of N·D′ − N′·D with real positive gain, polished on Σ1/(s−p) − Σ1/(s−z) = 0),
+/// break points (roots of N·D′ − N′·D with real positive gain, and repeated poles at gain 0, polished on Σ1/(s−p) − Σ1/(s−z) = 0),
 /// imaginary-axis crossings (Im[D(jω)·N̄(jω)] = 0 with real positive gain), departure and arrival angles.
 /// </summary>
 public static class LocusFeatures
 {
+    // Open-loop poles this close (relative) are one repeated pole: root finding splits an exact double root of
+    // an expanded polynomial by about √ε·|p| ≈ 1.5e-8·|p|.
+    private const double RepeatTolerance = 1e-6;
+
+    // A zero cancels a pole only when they agree to rounding: a dipole 1e-6 apart is a real pair of features.
+    private const double CancelTolerance = 1e-10;
+
     internal static LocusResult Complete(
         ImmutableArray<ImmutableArray<LocusPoint>> branches,
         ImmutableArray<Complex?> ends,
@@ -39,7 +46,7 @@ public static class LocusFeatures
             Centroid = centroid,
             AsymptoteAnglesDegrees = angles,
             RealAxisSegments = Segments(poles, zeros, zeroDegree),
-            BreakPoints = breakPoints,
+            BreakPoints = WithRepeatedPoles(breakPoints, poles, zeros),
             AxisCrossings = AxisCrossings(poles, zeros, g),
             BranchAngles = BranchAngles(poles, zeros, zeroDegree),
             Approximate = approximate,
@@ -89,6 +96,9 @@ public static class LocusFeatures
     /// <summary>Break points with real positive gain.</summary>
     public static ImmutableArray<BreakPoint> BreakPoints(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, double g)
     {
+        // A pole cancelled by an equal zero keeps its closed-loop root for every gain: the break points are
+        // those of the reduced loop (where one may lie exactly on the cancelled pole).
+        (poles, zeros) = WithoutCancellations(poles, zeros);
         var d = Polynomial.FromRoots(poles);
         var n = Polynomial.FromRoots(zeros);
         var condition = (n * d.Derivative()) + (n.Derivative() * d * -1.0);
@@ -117,6 +127,55 @@ public static class LocusFeatures
         }
 
         return [.. result.OrderBy(b => b.Point.Real)];
+    }
+
+    /// <summary>
+    /// The break points with every repeated open-loop pole added as one at gain 0 (branches leave a pole of
+    /// multiplicity m at m equally spread angles): a root of N·D′ − N′·D at a pole that the gain-K test cannot
+    /// see. A pole cancelled by an equal zero is not one (its closed-loop root stays put for every gain).
+    /// </summary>
+    internal static ImmutableArray<BreakPoint> WithRepeatedPoles(ImmutableArray<BreakPoint> breakPoints, ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros)
+    {
+        var result = breakPoints.ToList();
+        var seen = new List<Complex>();
+        foreach (var p in poles)
+        {
+            var radius = RepeatTolerance * Math.Max(1, p.Magnitude);
+            if (seen.Any(q => Complex.Abs(q - p) <= radius))
+            {
+                continue;
+            }
+
+            seen.Add(p);
+            var multiplicity = poles.Count(q => Complex.Abs(q - p) <= radius) - zeros.Count(z => Complex.Abs(z - p) <= CancelTolerance * Math.Max(1, p.Magnitude));
+            if (multiplicity >= 2)
+            {
+                result.RemoveAll(b => Complex.Abs(b.Point - p) <= radius);
+                result.Add(new BreakPoint(Math.Abs(p.Imaginary) <= radius ? new Complex(p.Real, 0) : p, 0));
+            }
+        }
+
+        return [.. result.OrderBy(b => b.Point.Real).ThenBy(b => b.Point.Imaginary)];
+    }
+
+    private static (ImmutableArray<Complex> Poles, ImmutableArray<Complex> Zeros) WithoutCancellations(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros)
+    {
+        var keptPoles = poles.ToList();
+        var keptZeros = new List<Complex>();
+        foreach (var z in zeros)
+        {
+            var index = keptPoles.FindIndex(p => Complex.Abs(p - z) <= CancelTolerance * Math.Max(1, z.Magnitude));
+            if (index >= 0)
+            {
+                keptPoles.RemoveAt(index);
+            }
+            else
+            {
+                keptZeros.Add(z);
+            }
+        }
+
+        return ([.. keptPoles], [.. keptZeros]);
     }
 
     /// <summary>Imaginary-axis crossings with real positive gain (including ω = 0, a root at the origin).</summary>
@@ -165,20 +224,43 @@ public static class LocusFeatures
     /// <summary>Departure angles at complex poles and arrival angles at complex zeros (multiplicity counted).</summary>
     public static ImmutableArray<BranchAngle> BranchAngles(ImmutableArray<Complex> poles, ImmutableArray<Complex> zeros, bool zeroDegree)
     {
+        // A point where poles and zeros coincide counts by its net multiplicity m (poles minus zeros): m > 0 is
+        // a pole that m branches leave, m < 0 a zero that |m| branches reach, m = 0 a cancellation with none.
+        // m·θ = base + Σ∠(s − z) − Σ∠(s − p) + 360°·k over the other poles and zeros gives the m angles.
         var result = ImmutableArray.CreateBuilder<BranchAngle>();
         var baseAngle = zeroDegree ? 0.0 : 180.0;
-        foreach (var p in poles.Where(p => p.Imaginary > 0).Distinct())
+        foreach (var departure in new[] { true, false })
         {
-            var m = poles.Count(q => q == p);
-            var sum = zeros.Sum(z => Angle(p - z)) - poles.Where(q => q != p).Sum(q => Angle(p - q));
-            result.Add(new BranchAngle(p, Angles.WrapDegrees((baseAngle + sum) / m), true));
-        }
+            var same = departure ? poles : zeros;
+            var opposite = departure ? zeros : poles;
+            var seen = new List<Complex>();
+            foreach (var at in same.Where(r => r.Imaginary >= 0))
+            {
+                var radius = RepeatTolerance * Math.Max(1, at.Magnitude);
+                var cancel = CancelTolerance * Math.Max(1, at.Magnitude);
+                if (seen.Any(q => Complex.Abs(q - at) <= radius))
+                {
+                    continue;
+                }
 
-        foreach (var z in zeros.Where(z => z.Imaginary > 0).Distinct())
-        {
-            var m = zeros.Count(q => q == z);
-            var sum = poles.Sum(p => Angle(z - p)) - zeros.Where(q => q != z).Sum(q => Angle(z - q));
-            result.Add(new BranchAngle(z, Angles.WrapDegrees((baseAngle + sum) / m), false));
+                seen.Add(at);
+                var m = same.Count(q => Complex.Abs(q - at) <= radius) - opposite.Count(q => Complex.Abs(q - at) <= cancel);
+                var isReal = Math.Abs(at.Imaginary) <= radius;
+                if (m <= 0 || (isReal && m < 2))
+                {
+                    continue;
+                }
+
+                var point = isReal ? new Complex(at.Real, 0) : at;
+                var toSame = same.Where(q => Complex.Abs(q - at) > radius).Sum(q => Angle(point - q));
+                var toOpposite = opposite.Where(q => Complex.Abs(q - at) > cancel).Sum(q => Angle(point - q));
+                var first = (baseAngle + toOpposite - toSame) / m;
+                var angles = Enumerable.Range(0, m).Select(k => Angles.WrapDegrees(first + (360.0 * k / m))).OrderBy(a => a);
+                foreach (var angle in angles)
+                {
+                    result.Add(new BranchAngle(point, angle, departure));
+                }
+            }
         }
 
         return result.ToImmutable();

@@ -116,7 +116,7 @@ public static class DesignTextReport
         sb.AppendLine();
 
         sb.AppendLine("s-plane (locus of the compensated loop; ■ the designed closed-loop poles)");
-        LocusReport.AppendFeatures(sb, report.Locus);
+        LocusReport.AppendFeatures(sb, report.Locus, relativeToDesign: true);
         var scene = new SPlaneScene
         {
             Branches = LocusReport.Polylines(report.Locus),

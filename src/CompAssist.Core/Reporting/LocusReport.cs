@@ -12,14 +12,23 @@ namespace CompAssist.Core.Reporting;
 public static class LocusReport
 {
     /// <summary>The summary for people, with the s-plane picture.</summary>
-    public static string RenderText(LocusResult locus, Loop loop, PictureStyle style, int width = 78, int height = 22)
+    /// <param name="locus">The locus.</param>
+    /// <param name="loop">The loop it belongs to.</param>
+    /// <param name="compensator">The compensator in the loop, or null for none (C = 1).</param>
+    /// <param name="style">Unicode or ASCII pictures.</param>
+    /// <param name="width">Picture width in characters.</param>
+    /// <param name="height">Picture height in rows.</param>
+    public static string RenderText(LocusResult locus, Loop loop, TransferFunction? compensator, PictureStyle style, int width = 78, int height = 22)
     {
         ArgumentNullException.ThrowIfNull(locus);
         ArgumentNullException.ThrowIfNull(loop);
         var sb = new StringBuilder();
         sb.AppendLine("CompAssist root locus");
         sb.AppendLine();
-        sb.AppendLine($"  loop G·H = {loop.PlantTimesFeedback}   ({(locus.ZeroDegreeLocus ? "0°" : "180°")} locus, K from 0 to ∞)");
+        var kind = $"({(locus.ZeroDegreeLocus ? "0°" : "180°")} locus, K from 0 to ∞)";
+        sb.AppendLine(compensator is null || compensator.Equals(TransferFunction.Unity)
+            ? $"  loop G·H = {loop.PlantTimesFeedback}   {kind}"
+            : $"  loop C·G·H with C = {compensator}, G·H = {loop.PlantTimesFeedback}   {kind}");
         if (locus.Approximate)
         {
             TextWrap.AppendTo(sb, $"the delay is replaced by a Padé approximant of order {loop.PadeOrder}; its poles and zeros are artefacts");
@@ -38,8 +47,11 @@ public static class LocusReport
         return sb.ToString();
     }
 
-    /// <summary>The features as indented text lines.</summary>
-    public static void AppendFeatures(StringBuilder sb, LocusResult locus)
+    /// <summary>
+    /// The features as indented text lines. With <paramref name="relativeToDesign"/> the gains are multipliers
+    /// of a designed loop ("at 0.68 × the designed gain"), so they are not read as the compensator's factored gain.
+    /// </summary>
+    public static void AppendFeatures(StringBuilder sb, LocusResult locus, bool relativeToDesign = false)
     {
         ArgumentNullException.ThrowIfNull(sb);
         ArgumentNullException.ThrowIfNull(locus);
@@ -51,19 +63,25 @@ public static class LocusReport
         sb.AppendLine($"  real axis on the locus: {(locus.RealAxisSegments.Length == 0 ? "none" : string.Join(", ", locus.RealAxisSegments.Select(s => $"[{N(s.From)}, {N(s.To)}]")))}");
         foreach (var b in locus.BreakPoints)
         {
-            sb.AppendLine($"  break point at {TransferFunctionFormatter.Complex(b.Point, 5)}, K = {N(b.Gain)}");
+            sb.AppendLine(b.Gain == 0
+                ? $"  break point at {TransferFunctionFormatter.Complex(b.Point, 5)}, a repeated pole (branches leave it at once)"
+                : $"  break point at {TransferFunctionFormatter.Complex(b.Point, 5)}, {GainText(b.Gain, relativeToDesign)}");
         }
 
         foreach (var c in locus.AxisCrossings)
         {
-            sb.AppendLine($"  crosses the imaginary axis at ±{N(c.Frequency)}j rad/s for K = {N(c.Gain)}");
+            sb.AppendLine($"  crosses the imaginary axis at ±{N(c.Frequency)}j rad/s, {GainText(c.Gain, relativeToDesign)}");
         }
 
-        foreach (var a in locus.BranchAngles)
+        foreach (var group in locus.BranchAngles.GroupBy(a => (a.At, a.IsDeparture)))
         {
-            sb.AppendLine($"  {(a.IsDeparture ? "departure from pole" : "arrival at zero")} {TransferFunctionFormatter.Complex(a.At, 4)}: {N(a.AngleDegrees)}°");
+            var where = group.Key.IsDeparture ? "departure from pole" : "arrival at zero";
+            sb.AppendLine($"  {where} {TransferFunctionFormatter.Complex(group.Key.At, 4)}: {string.Join(", ", group.Select(a => N(a.AngleDegrees) + "°"))}");
         }
     }
+
+    private static string GainText(double gain, bool relativeToDesign) =>
+        relativeToDesign ? $"at {N(gain)} × the designed gain" : $"K = {N(gain)}";
 
     /// <summary>The machine interface: branches of {k, re, im}, asymptotes, break points, axis crossings, angles.</summary>
     public static string RenderJson(LocusResult locus)

@@ -52,6 +52,28 @@ public class LocusCommandTests
         Assert.Equal(3, doc.RootElement.GetProperty("branches").GetArrayLength());
     }
 
+    [Fact]
+    public void Locus_WithCompensator_HeaderNamesItAndTheCancelledPoleIsNoBreakPoint()
+    {
+        // 4/(s(s + 2)) with C = (s + 2)/(s + 4): the locus of 4/(s(s + 4)), break-away at −2 with 4K = 4.
+        var (code, output, _) = CliRunner.Run("locus", "--plant", "4/(s(s+2))", "--compensator", "(s+2)/(s+4)", "--ascii");
+        Assert.Equal(0, code);
+        Assert.Contains("loop C·G·H with C = (s + 2) / (s + 4), G·H = 4 / (s (s + 2))", output, StringComparison.Ordinal);
+        Assert.Single(output.Split('\n'), l => l.Contains("break point", StringComparison.Ordinal));
+        Assert.Contains("break point at -2, K = 1", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_Text_BreakPointGainsAreMultipliersOfTheDesignedGain()
+    {
+        // The factored gain of C is "K" in the synthesis; the locus features of the designed loop are
+        // multipliers of that loop, and must not read as a second K.
+        var (_, output, _) = CliRunner.Run("design", "--plant", "1/(s(s+1)(s+5))", "--type", "lead", "--zeta", "0.5", "--wn", "1.5", "--ascii");
+        var lines = output.Split('\n').Where(l => l.Contains("break point at", StringComparison.Ordinal) || l.Contains("crosses the imaginary axis", StringComparison.Ordinal)).ToList();
+        Assert.NotEmpty(lines);
+        Assert.All(lines, l => Assert.True(l.Contains("× the designed gain", StringComparison.Ordinal) || l.Contains("repeated pole", StringComparison.Ordinal), l));
+    }
+
     [Theory]
     [InlineData("--compensator", "s^2", "error: The compensated loop C·G·H has more zeros than poles")]
     [InlineData("--compensator", "(s", "error: cannot read the compensator expression:")]
