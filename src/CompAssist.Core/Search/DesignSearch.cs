@@ -134,10 +134,7 @@ public static class DesignSearch
         // Every candidate that meets was also judged at every corner of the variation box.
         var winner = ranked[0];
         var swept = variations.Count > 0 ? ranked.Count(c => c.Stable && c.Checks.Length > 0) : 0;
-        var runners = ranked.Where(c => !ReferenceEquals(c, winner))
-            .DistinctBy(c => (Math.Round(c.Choice.Target.Point.Real, 3), Math.Round(c.Choice.Target.Point.Imaginary, 3), c.Choice.Lead.Placement))
-            .Take(options.RunnersUp)
-            .ToImmutableArray();
+        var runners = RunnerUpSelection.Pick(ranked, winner, options.RunnersUp);
         var limits = winner.Meets ? [] : PhysicalLimits.Explain(loop, requirements, check, winner);
         return Outcome<SearchOutcome>.Success(new SearchOutcome(winner, runners, pool.Count, options.Objective, options.RequirementMargin, limits, swept));
     }

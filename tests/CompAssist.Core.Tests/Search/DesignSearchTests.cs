@@ -54,6 +54,32 @@ public class DesignSearchTests
     }
 
     [Fact]
+    public void Run_MotorPosition_RunnersUpDifferFromTheWinnerAndFromEachOther()
+    {
+        // A runner-up that repeats the winner (another choice that synthesizes the same compensator, or a
+        // pattern-search neighbour a few per cent away) shows no trade-off: every pair must differ by more
+        // than 15 % in the target or in the compensator's gain, poles or zeros.
+        var loop = Loop.Create(FromText("25/(s(s+5))"));
+        var found = Search(loop, new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 1.2 });
+        Assert.NotEmpty(found.RunnersUp);
+        var all = found.RunnersUp.Prepend(found.Winner).ToList();
+        for (var i = 0; i < all.Count; i++)
+        {
+            for (var j = i + 1; j < all.Count; j++)
+            {
+                var (a, b) = (all[i], all[j]);
+                var targetApart = Complex.Abs(a.Choice.Target.Point - b.Choice.Target.Point) > 0.15 * Math.Max(a.Choice.Target.Point.Magnitude, b.Choice.Target.Point.Magnitude);
+                var ca = a.Design.Compensator.TransferFunction;
+                var cb = b.Design.Compensator.TransferFunction;
+                var compensatorApart = ca.Poles.Length != cb.Poles.Length || Math.Abs(ca.Gain - cb.Gain) > 0.15 * Math.Max(ca.Gain, cb.Gain)
+                    || ca.Poles.Zip(cb.Poles).Any(p => Complex.Abs(p.First - p.Second) > 0.15 * p.First.Magnitude)
+                    || ca.Zeros.Zip(cb.Zeros).Any(z => Complex.Abs(z.First - z.Second) > 0.15 * z.First.Magnitude);
+                Assert.True(targetApart || compensatorApart, $"{i} and {j}: {a.Choice.Target.Point} {ca} vs {b.Choice.Target.Point} {cb}");
+            }
+        }
+    }
+
+    [Fact]
     public void Run_UnstablePlantWhoseCornerNeedsLag_FindsALeadThatMeets()
     {
         // The corner of this region needs phase lag, which a lead cannot give; faster targets need none.
