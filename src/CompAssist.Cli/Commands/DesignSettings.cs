@@ -15,7 +15,7 @@ internal sealed class DesignSettings
 
     public Option<double?> Margin { get; } = new("--lag-margin") { Description = "Safety factor on the lag ratio (default 1.1)." };
 
-    public Option<double?> FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at N times the zero (default: ideal derivative)." };
+    public Option<double?> FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at this multiple of the PD zero (default: ideal derivative)." };
 
     public Option<string?> Placement { get; } = new("--placement") { Description = "Lead placement: beneath, bisector, cancel, fixed-zero, fixed-pole, ratio." };
 
@@ -47,7 +47,30 @@ internal sealed class DesignSettings
         }
 
         var objective = parse.GetValue(Objective) is { } name ? Core.Search.SearchObjectiveNames.TryParse(name)!.Value : Core.Search.SearchObjective.HighFrequencyGain;
-        return Core.Workflow.DesignWorkflow.Search(input, new Core.Search.SearchOptions { Objective = objective });
+        return Core.Workflow.DesignWorkflow.Search(input, new Core.Search.SearchOptions { Objective = objective, Pinned = Pinned(parse) });
+    }
+
+    /// <summary>The free choices given on the command line: the search keeps them as given.</summary>
+    private Core.Search.SearchPins Pinned(ParseResult parse)
+    {
+        var pins = Core.Search.SearchPins.None;
+        void Pin(Option option, Core.Search.SearchPins pin)
+        {
+            if (parse.GetResult(option) is { Implicit: false })
+            {
+                pins |= pin;
+            }
+        }
+
+        Pin(Placement, Core.Search.SearchPins.Placement);
+        Pin(Zero, Core.Search.SearchPins.Placement);
+        Pin(Pole, Core.Search.SearchPins.Placement);
+        Pin(Ratio, Core.Search.SearchPins.Placement | Core.Search.SearchPins.Ratio);
+        Pin(MaxStageAngle, Core.Search.SearchPins.StageAngle);
+        Pin(ZeroFraction, Core.Search.SearchPins.ZeroFraction);
+        Pin(Margin, Core.Search.SearchPins.LagMargin);
+        Pin(FilterRatio, Core.Search.SearchPins.FilterRatio);
+        return pins;
     }
 
     public void AddTo(Command command)

@@ -56,6 +56,11 @@ public static class SearchSection
         ArgumentNullException.ThrowIfNull(search);
         sb.AppendLine("Search (the target and the free choices were searched, not taken from the corner)");
         TextWrap.AppendTo(sb, $"{search.Evaluated} candidates, each synthesized by the angle and magnitude conditions and proved on the exact step: a grid over the region and 30 % beyond it, every placement and free choice at the best 20 targets, and a pattern search from the best 5{(search.RobustFinalists > 0 ? "; every candidate that met nominally was also judged at every variation corner" : string.Empty)}");
+        if (search.Pinned != SearchPins.None)
+        {
+            TextWrap.AppendTo(sb, $"kept as given, not searched: {SearchPinNames.Settings(search.Pinned)}");
+        }
+
         TextWrap.AppendTo(sb, $"objective: {SearchObjectiveNames.Meaning(search.Objective)}; a candidate meets when every requirement holds with a {N(search.RequirementMargin * 100)} % margin");
         TextWrap.AppendTo(sb, $"winner: {Line(search.Winner, search.Objective)}");
         if (search.RunnersUp.Length > 0)
@@ -90,6 +95,13 @@ public static class SearchSection
         w.WriteNumber("requirementMargin", search.RequirementMargin);
         w.WriteBoolean("meets", search.Meets);
         w.WriteNumber("robustFinalists", search.RobustFinalists);
+        w.WriteStartArray("keptAsGiven");
+        foreach (var name in SearchPinNames.Names(search.Pinned))
+        {
+            w.WriteStringValue(name);
+        }
+
+        w.WriteEndArray();
         w.WriteStartObject("winner");
         Candidate(w, search.Winner);
         w.WriteEndObject();

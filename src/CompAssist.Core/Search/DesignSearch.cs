@@ -104,7 +104,7 @@ public static class DesignSearch
         var variants = new List<SearchChoice>();
         foreach (var target in best)
         {
-            variants.AddRange(Variants(loop, kind, target, lead, slow));
+            variants.AddRange(Variants(loop, kind, target, lead, slow, options.Pinned));
         }
 
         pool.EvaluateAll(variants);
@@ -114,7 +114,7 @@ public static class DesignSearch
         // Each start has its own evaluation budget and order numbers, so the result does not depend on timing.
         var baseOrder = pool.Count;
         var perStart = Math.Max(0, Math.Min(80, (options.MaxCandidates - baseOrder) / Math.Max(1, starts.Count)));
-        Parallel.For(0, starts.Count, Parallelism(options, cancellation), i => PatternSearch(pool, kind, starts[i], baseOrder + (i * perStart), perStart));
+        Parallel.For(0, starts.Count, Parallelism(options, cancellation), i => PatternSearch(pool, kind, options.Pinned, starts[i], baseOrder + (i * perStart), perStart));
 
         var ranked = pool.Ranked();
         if (ranked.Count == 0)
@@ -136,7 +136,7 @@ public static class DesignSearch
         var swept = variations.Count > 0 ? ranked.Count(c => c.Stable && c.Checks.Length > 0) : 0;
         var runners = RunnerUpSelection.Pick(ranked, winner, options.RunnersUp);
         var limits = winner.Meets ? [] : PhysicalLimits.Explain(loop, requirements, check, winner);
-        return Outcome<SearchOutcome>.Success(new SearchOutcome(winner, runners, pool.Count, options.Objective, options.RequirementMargin, limits, swept));
+        return Outcome<SearchOutcome>.Success(new SearchOutcome(winner, runners, pool.Count, options.Objective, options.RequirementMargin, limits, swept) { Pinned = options.Pinned });
     }
 
     private static ParallelOptions Parallelism(SearchOptions options, CancellationToken cancellation) =>
@@ -154,10 +154,10 @@ public static class DesignSearch
         return (Math.Max(2, (int)(GridSigma * scale)), Math.Max(2, (int)(GridOmega * scale)));
     }
 
-    /// <summary>The kind's placements and continuous choices at a target (the given choice excluded).</summary>
-    private static IEnumerable<SearchChoice> Variants(Loop loop, CompensatorKind kind, TargetPole target, LeadOptions lead, SlowPoleOptions slow)
+    /// <summary>The kind's placements and continuous choices at a target (the given choice excluded, pinned ones kept).</summary>
+    private static IEnumerable<SearchChoice> Variants(Loop loop, CompensatorKind kind, TargetPole target, LeadOptions lead, SlowPoleOptions slow, SearchPins pinned)
     {
-        if (kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+        if (!pinned.HasFlag(SearchPins.Placement) && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
         {
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Bisector }, slow);
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Beneath }, slow);
@@ -170,14 +170,17 @@ public static class DesignSearch
             {
                 yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Cancel, Zero = pole }, slow);
             }
+        }
 
+        if (!pinned.HasFlag(SearchPins.StageAngle) && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+        {
             foreach (var angle in (double[])[40, 50, 70, 80])
             {
                 yield return new SearchChoice(target, lead with { MaxStageAngleDegrees = angle }, slow);
             }
         }
 
-        if (kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
+        if (!pinned.HasFlag(SearchPins.ZeroFraction) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
         {
             foreach (var fraction in (double[])[0.03, 0.06, 0.15, 0.25, 0.4])
             {
@@ -192,17 +195,17 @@ public static class DesignSearch
                     yield return new SearchChoice(target, lead, slow with { ZeroFraction = pole / target.Sigma });
                 }
             }
+        }
 
-            if (kind is CompensatorKind.Lag or CompensatorKind.LeadLag)
+        if (!pinned.HasFlag(SearchPins.LagMargin) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag)
+        {
+            foreach (var margin in (double[])[1.25, 1.5, 2.0])
             {
-                foreach (var margin in (double[])[1.25, 1.5, 2.0])
-                {
-                    yield return new SearchChoice(target, lead, slow with { Margin = margin });
-                }
+                yield return new SearchChoice(target, lead, slow with { Margin = margin });
             }
         }
 
-        if (kind is CompensatorKind.PD or CompensatorKind.PID)
+        if (!pinned.HasFlag(SearchPins.FilterRatio) && kind is CompensatorKind.PD or CompensatorKind.PID)
         {
             foreach (var ratio in (double[])[4, 7, 10, 15, 25])
             {
@@ -212,7 +215,7 @@ public static class DesignSearch
     }
 
     /// <summary>Coordinate steps in ln σ, ln ωd and the kind's continuous choice, halved when no step improves.</summary>
-    private static void PatternSearch(Pool pool, CompensatorKind kind, SearchCandidate start, int firstOrder, int budget)
+    private static void PatternSearch(Pool pool, CompensatorKind kind, SearchPins pinned, SearchCandidate start, int firstOrder, int budget)
     {
         var current = start;
         var step = 0.08;
@@ -220,7 +223,7 @@ public static class DesignSearch
         while (step > 0.004 && used < budget)
         {
             var improved = false;
-            foreach (var next in Neighbours(kind, current.Choice, step))
+            foreach (var next in Neighbours(kind, pinned, current.Choice, step))
             {
                 if (used >= budget)
                 {
@@ -262,24 +265,24 @@ public static class DesignSearch
         return true;
     }
 
-    private static IEnumerable<SearchChoice> Neighbours(CompensatorKind kind, SearchChoice c, double step)
+    private static IEnumerable<SearchChoice> Neighbours(CompensatorKind kind, SearchPins pinned, SearchChoice c, double step)
     {
         var p = c.Target.Point;
         foreach (var f in (double[])[Math.Exp(step), Math.Exp(-step)])
         {
             yield return c with { Target = TargetPole.At(new Complex(p.Real * f, p.Imaginary)) };
             yield return c with { Target = TargetPole.At(new Complex(p.Real, p.Imaginary * f)) };
-            if (c.Lead.Placement == LeadPlacement.Ratio && c.Lead.Ratio is { } r && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+            if (!pinned.HasFlag(SearchPins.Ratio) && c.Lead.Placement == LeadPlacement.Ratio && c.Lead.Ratio is { } r && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
             {
                 yield return c with { Lead = c.Lead with { Ratio = Math.Max(1.05, r * f) } };
             }
 
-            if (kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
+            if (!pinned.HasFlag(SearchPins.ZeroFraction) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
             {
                 yield return c with { Slow = c.Slow with { ZeroFraction = Math.Clamp(c.Slow.ZeroFraction * f, 0.005, 0.9) } };
             }
 
-            if (c.Slow.FilterRatio is { } n && kind is CompensatorKind.PD or CompensatorKind.PID)
+            if (!pinned.HasFlag(SearchPins.FilterRatio) && c.Slow.FilterRatio is { } n && kind is CompensatorKind.PD or CompensatorKind.PID)
             {
                 yield return c with { Slow = c.Slow with { FilterRatio = Math.Max(1.5, n * f) } };
             }

@@ -18,6 +18,9 @@ public sealed record SearchOptions
     /// <summary>Most threads the search uses (null: one per core). The answer does not depend on it.</summary>
     public int? MaxParallelism { get; init; }
 
+    /// <summary>Free choices kept as given (stated by the user) rather than searched.</summary>
+    public SearchPins Pinned { get; init; } = SearchPins.None;
+
     /// <summary>Number of runners-up reported beside the winner.</summary>
     public int RunnersUp { get; init; } = 5;
 }

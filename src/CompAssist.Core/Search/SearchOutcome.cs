@@ -19,6 +19,9 @@ public sealed record SearchOutcome(
     ImmutableArray<string> Limits,
     int RobustFinalists)
 {
+    /// <summary>The free choices that were kept as given instead of searched.</summary>
+    public SearchPins Pinned { get; init; }
+
     /// <summary>True when the winner meets every requirement.</summary>
     public bool Meets => Winner.Meets;
 }

@@ -8,6 +8,19 @@ public class DesignCommandTests
     private static readonly string Ogata = "4/(s(s+2))";
 
     [Fact]
+    public void Design_SearchWithAPlacementFlag_KeepsItAndSaysSo()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "25/(s(s+5))", "--overshoot", "10", "--settling", "1.2", "--placement", "cancel", "--zero", "-5", "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var search = doc.RootElement.GetProperty("search");
+        Assert.Equal(["placement"], search.GetProperty("keptAsGiven").EnumerateArray().Select(e => e.GetString()));
+        Assert.StartsWith("cancel -5", search.GetProperty("winner").GetProperty("choice").GetString(), StringComparison.Ordinal);
+        var (_, text, _) = CliRunner.Run("design", "--plant", "25/(s(s+5))", "--overshoot", "10", "--settling", "1.2", "--placement", "cancel", "--zero", "-5");
+        Assert.Contains("kept as given, not searched: the lead placement", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Design_Text_ShowsCompensatorProofAndCaution()
     {
         var (code, output, error) = CliRunner.Run("design", "--plant", Ogata, "--zeta", "0.5", "--wn", "4");

@@ -80,6 +80,25 @@ public class DesignSearchTests
     }
 
     [Fact]
+    public void Run_PinnedFilterRatioAndPlacement_EveryCandidateReportedKeepsThem()
+    {
+        // A stated derivative filter (a firmware constraint) or a stated placement is kept as given; the
+        // search still moves the target and the other free choices.
+        var loop = Loop.Create(FromText("1/((s+1)(s+2)(s+10))"));
+        var r = new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 2 };
+        var pid = DesignSearch.Run(loop, r, CompensatorKind.PID, new LeadOptions(), new SlowPoleOptions { FilterRatio = 10 }, new CheckOptions(), [],
+            new SearchOptions { Pinned = SearchPins.FilterRatio }).Value!;
+        Assert.All(pid.RunnersUp.Prepend(pid.Winner), c => Assert.Equal(10.0, c.Choice.Slow.FilterRatio));
+        Assert.Equal(SearchPins.FilterRatio, pid.Pinned);
+
+        var lead = Search(Loop.Create(FromText("25/(s(s+5))")), new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 1.2 },
+            new SearchOptions { Pinned = SearchPins.Placement });
+        Assert.All(lead.RunnersUp.Prepend(lead.Winner), c => Assert.Equal(LeadPlacement.Bisector, c.Choice.Lead.Placement));
+        var free = Search(Loop.Create(FromText("25/(s(s+5))")), new Requirements { MaxOvershootPercent = 10, MaxSettlingTime = 1.2 });
+        Assert.Contains(free.RunnersUp.Prepend(free.Winner), c => c.Choice.Lead.Placement != LeadPlacement.Bisector);
+    }
+
+    [Fact]
     public void Run_UnstablePlantWhoseCornerNeedsLag_FindsALeadThatMeets()
     {
         // The corner of this region needs phase lag, which a lead cannot give; faster targets need none.
