@@ -207,13 +207,6 @@ internal sealed class LoopSettings
             MaxSensitivityPeak = parse.GetValue(MaxSensitivity) ?? result.MaxSensitivityPeak,
         };
 
-        if (RequirementRanges.Check(result) is { } outOfRange)
-        {
-            stderr.WriteLine($"error: {outOfRange.Message}.");
-            stderr.WriteLine($"hint: {outOfRange.Hint}");
-            return null;
-        }
-
         var zeta = parse.GetValue(Zeta);
         var wn = parse.GetValue(Wn);
         if (zeta is not null || wn is not null)
@@ -258,6 +251,13 @@ internal sealed class LoopSettings
             }
 
             result = result with { Point = point };
+        }
+
+        if (RequirementRanges.Check(result) is { } outOfRange)
+        {
+            stderr.WriteLine($"error: {outOfRange.Message}.");
+            stderr.WriteLine($"hint: {outOfRange.Hint}");
+            return null;
         }
 
         return result;

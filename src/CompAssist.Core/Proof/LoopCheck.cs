@@ -15,6 +15,9 @@ namespace CompAssist.Core.Proof;
 /// </summary>
 public static class LoopCheck
 {
+    // Relative size below which a difference of nearly equal terms (1 − T(0), the terms of T′(0)) is rounding.
+    private const double RoundingLevel = 1e-10;
+
     /// <summary>Checks the loop, finding its closed-loop poles by root finding.</summary>
     /// <exception cref="RootFindingException">The closed-loop poles cannot be verified.</exception>
     public static LoopCheckReport Run(Loop loop, TransferFunction compensator, CheckOptions options, Requirements? requirements = null, TargetPole? target = null)
@@ -46,7 +49,7 @@ public static class LoopCheck
         var intervals = options.Intervals;
         var effort = new Lazy<SampledResponse?>(() => effortSystem is not null ? StepSimulator.Step(effortSystem, h, intervals) : null);
         var metrics = measured with { SampleTime = h };
-        var stepError = stable ? 1.0 - final : double.NaN;
+        var stepError = stable ? (Math.Abs(1.0 - final) <= RoundingLevel ? 0.0 : 1.0 - final) : double.NaN;
         var rampError = stable ? RampError(transfers.Output, stepError) : double.NaN;
         var constants = ErrorConstants.Of(loop, compensator);
         var margins = stable ? MarginAnalyzer.Analyze(loop, compensator) : null;
@@ -181,17 +184,22 @@ public static class LoopCheck
         // T′(0)/T(0) = Σ 1/(0 − z) − Σ 1/(0 − p) for T(0) ≠ 0.
         var t0 = t.DcGain;
         Complex logDerivative = 0;
+        var size = 0.0;
         foreach (var z in t.Zeros)
         {
             logDerivative += 1.0 / (-z);
+            size += 1.0 / z.Magnitude;
         }
 
         foreach (var p in t.Poles)
         {
             logDerivative -= 1.0 / (-p);
+            size += 1.0 / p.Magnitude;
         }
 
-        return -(t0 * logDerivative.Real);
+        // A type-2 loop has T′(0) = 0: the terms cancel to rounding, which is zero, not a tiny error.
+        var error = -(t0 * logDerivative.Real);
+        return Math.Abs(error) <= RoundingLevel * Math.Abs(t0) * size ? 0.0 : error;
     }
 
     private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options)

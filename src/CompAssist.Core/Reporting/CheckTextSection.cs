@@ -21,7 +21,7 @@ public static class CheckTextSection
         {
             var result = c.Passes switch { true => "pass", false => c.Valid ? "FAIL" : "FAIL (unstable)", null => string.Empty };
             var measured = c.Valid ? Measured(c) : "-";
-            sb.AppendLine($"  {c.Name,-25} {measured,9}   {(c.Required is { } r ? c.BoundSymbol + " " + N(r, 4) : "-"),9}   {(c.Predicted is { } p ? N(p, 4) : "-"),9}   {result}".TrimEnd());
+            sb.AppendLine($"  {c.Name,-25} {measured,9}   {(c.Required is { } r ? c.BoundSymbol + " " + N(r, 4) : "-"),9}   {(c.Predicted is { } p ? (c.Name == RequirementChecks.PeakTime && double.IsPositiveInfinity(p) ? "none" : N(p, 4)) : "-"),9}   {result}".TrimEnd());
         }
 
         sb.AppendLine($"  final value {N(m.FinalValue, 6)}; steady-state error r − y: step {N(Clean(check.StepError), 4)}, ramp {N(check.RampError, 4)}");

@@ -46,7 +46,9 @@ public static class DesignTextReport
 
         var p = requested.Predict();
         sb.AppendLine("  second-order predictions (not measurements):");
-        sb.AppendLine($"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
+        sb.AppendLine(double.IsPositiveInfinity(p.PeakTime)
+            ? $"    overshoot 0 % (no visible peak: ζ = {N(requested.Zeta, 4)}), so no peak time and no 0–100 % rise"
+            : $"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
         sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ)");
         sb.AppendLine();
         if (report.Search is { } search)

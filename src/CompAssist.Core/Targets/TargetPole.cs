@@ -53,11 +53,26 @@ public sealed class TargetPole
         return new TargetPole(new Complex(-zeta * naturalFrequency, naturalFrequency * Math.Sqrt(1.0 - (zeta * zeta))));
     }
 
-    /// <summary>The second-order predictions for this pole (valid only if it really dominates).</summary>
-    public SecondOrderPrediction Predict() => new(
-        OvershootPercent: SecondOrder.OvershootPercent(Zeta),
-        PeakTime: DampedFrequency > 0 ? SecondOrder.PeakTime(DampedFrequency) : double.PositiveInfinity,
-        SettlingTime2Percent: Sigma > 0 ? SecondOrder.SettlingTime(Sigma, SettlingBand.TwoPercent) : double.PositiveInfinity,
-        SettlingTime5Percent: Sigma > 0 ? SecondOrder.SettlingTime(Sigma, SettlingBand.FivePercent) : double.PositiveInfinity,
-        RiseTimeZeroToHundred: DampedFrequency > 0 && Zeta < 1 ? SecondOrder.RiseTimeZeroToHundred(Zeta, DampedFrequency) : double.PositiveInfinity);
+    /// <summary>
+    /// Predicted overshoot below this (percent) is no visible peak: the pair is all but critically damped, and
+    /// a "peak time" or a 0–100 % rise at the far end of an invisible crossing would mislead.
+    /// </summary>
+    public const double NoVisiblePeakPercent = 1e-3;
+
+    /// <summary>
+    /// The second-order predictions for this pole (valid only if it really dominates). Without a visible peak
+    /// (overshoot below <see cref="NoVisiblePeakPercent"/>) the overshoot is 0 and the peak time and the
+    /// 0–100 % rise time are +∞ (never).
+    /// </summary>
+    public SecondOrderPrediction Predict()
+    {
+        var overshoot = SecondOrder.OvershootPercent(Zeta);
+        var peak = overshoot >= NoVisiblePeakPercent && DampedFrequency > 0;
+        return new(
+            OvershootPercent: peak ? overshoot : 0.0,
+            PeakTime: peak ? SecondOrder.PeakTime(DampedFrequency) : double.PositiveInfinity,
+            SettlingTime2Percent: Sigma > 0 ? SecondOrder.SettlingTime(Sigma, SettlingBand.TwoPercent) : double.PositiveInfinity,
+            SettlingTime5Percent: Sigma > 0 ? SecondOrder.SettlingTime(Sigma, SettlingBand.FivePercent) : double.PositiveInfinity,
+            RiseTimeZeroToHundred: peak && Zeta < 1 ? SecondOrder.RiseTimeZeroToHundred(Zeta, DampedFrequency) : double.PositiveInfinity);
+    }
 }

@@ -20,6 +20,32 @@ public class DesignCommandTests
         Assert.Contains("kept as given, not searched: the lead placement", text, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("--overshoot", "0", "The largest overshoot is 0")]
+    [InlineData("--overshoot", "150", "The largest overshoot is 150")]
+    [InlineData("--overshoot", "nan", "The largest overshoot is nan")]
+    [InlineData("--settling", "-1", "The largest settling time is -1")]
+    [InlineData("--peak-time", "0", "The largest peak time is 0")]
+    [InlineData("--zeta", "1.5", "The damping ratio ζ of the target is 1.5")]
+    [InlineData("--wn", "0", "The natural frequency ωn of the target is 0")]
+    [InlineData("--target", "1,2", "The real part of the target pole is 1")]
+    public void Design_RequirementOutOfRange_InputErrorNotARefusal(string flag, string value, string message)
+    {
+        // An unusable value is bad input (exit 2), not a design refused as asked (exit 3).
+        string[] rest = flag switch
+        {
+            "--zeta" => ["--wn", "2"],
+            "--wn" => ["--zeta", "0.5"],
+            "--overshoot" => ["--settling", "2"],
+            "--target" => [],
+            _ => ["--overshoot", "10"],
+        };
+        var (code, output, error) = CliRunner.Run(["design", "--plant", Ogata, $"{flag}={value}", .. rest]);
+        Assert.Equal(2, code);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(message, error, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Design_Text_ShowsCompensatorProofAndCaution()
     {

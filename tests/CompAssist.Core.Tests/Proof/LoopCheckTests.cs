@@ -29,6 +29,22 @@ public class LoopCheckTests
         Assert.True(report.Checks.Single(c => c.Name == "overshoot %").Passes);
     }
 
+    [Theory]
+    [InlineData("1/s^2", "2(s+1)")]
+    [InlineData("(s+1)/(s^2 (s+5))", "10")]
+    [InlineData("1/(s^2 (s+4))", "3(s+0.5)")]
+    public void Run_TypeTwoOrHigherLoop_RampErrorIsExactlyZero(string plant, string compensator)
+    {
+        // Two or more integrators in L make Kv infinite and the ramp error 1/Kv zero (common practice: the
+        // error-constant table of unity-feedback loops). The log-derivative terms cancel to rounding; that
+        // rounding must read as 0, not as −1.4e-15.
+        var report = LoopCheck.Run(Loop.Create(FromText(plant)), FromText(compensator), new CheckOptions());
+        Assert.True(report.Stable);
+        Assert.True(report.ErrorConstants.SystemType >= 2);
+        Assert.Equal(0.0, report.StepError);
+        Assert.Equal(0.0, report.RampError);
+    }
+
     [Fact]
     public void Run_StrictlyProperPlant_InitialEffortIsHighFrequencyGain()
     {

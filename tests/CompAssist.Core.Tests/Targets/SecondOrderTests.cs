@@ -65,4 +65,20 @@ public class SecondOrderTests
         // ζ = 0.5: arccos ζ = π/3, so tr = (2π/3)/ωd.
         Tolerance.Close(2 * Math.PI / 3 / 3.0, SecondOrder.RiseTimeZeroToHundred(0.5, 3.0), 1e-15);
     }
+
+    [Fact]
+    public void Predict_AllButCriticallyDamped_NoPeakTimeAndNoFullRise()
+    {
+        // ζ = 0.9971: exp(−πζ/√(1 − ζ²)) ≈ 1e-18, far below anything visible; a "peak time" of π/ωd = 6 s
+        // would describe a peak that is not there (common practice: the overshoot formula).
+        var near = TargetPole.At(new System.Numerics.Complex(-6.8737, 0.52538)).Predict();
+        Assert.Equal(0.0, near.OvershootPercent);
+        Assert.True(double.IsPositiveInfinity(near.PeakTime));
+        Assert.True(double.IsPositiveInfinity(near.RiseTimeZeroToHundred));
+        Tolerance.Close(4 / 6.8737, near.SettlingTime2Percent, 1e-12);
+
+        var half = TargetPole.FromDamping(0.5, 4).Predict();
+        Tolerance.Close(16.3, half.OvershootPercent, 0, 0.05, "published table");
+        Tolerance.Close(Math.PI / (4 * Math.Sqrt(0.75)), half.PeakTime, 1e-12);
+    }
 }
