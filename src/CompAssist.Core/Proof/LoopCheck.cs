@@ -97,6 +97,12 @@ public static class LoopCheck
             warnings.Add("The compensator is improper (more zeros than poles): the actuator command contains an impulse at the step. Add a derivative filter.");
         }
 
+        if (stable && metrics.UndershootPercent > 0 && loop.Delay + compensator.Delay > 0
+            && !loop.Plant.Zeros.Concat(compensator.Zeros).Concat(loop.Feedback.Poles).Any(z => z.Real > 0))
+        {
+            warnings.Add($"The undershoot of {F(metrics.UndershootPercent)} % comes from the Padé approximant of the delay (its right-half-plane zeros): the real delay holds the output still until it has passed and starts no wrong-way excursion. The other step figures are those of the approximant too.");
+        }
+
         var prediction = target?.Predict();
         var checks = RequirementChecks.Of(metrics, stable, requirements, prediction, constants, effortFigures, margins);
         if (stable && prediction is not null && target is not null && target.Zeta < 1)

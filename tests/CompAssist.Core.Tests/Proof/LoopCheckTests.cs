@@ -46,6 +46,20 @@ public class LoopCheckTests
     }
 
     [Fact]
+    public void Run_DelayLoopWithPadeDip_UndershootNamedAsTheApproximantsNotTheLoops()
+    {
+        // e^(−θs) holds y at 0 for t < θ (common practice); the Padé approximant's right-half-plane zeros give a
+        // small wrong-way start that the real loop does not have. A right-half-plane zero of the plant does.
+        var delayed = LoopCheck.Run(Loop.Create(FromText("exp(-0.5s)/((s+1)(s+2))")), FromText("1.5(s+0.8)/s"), new CheckOptions());
+        Assert.True(delayed.Step.UndershootPercent > 0);
+        Assert.Contains(delayed.Warnings, w => w.Contains("comes from the Padé approximant", StringComparison.Ordinal));
+
+        var nonMinimumPhase = LoopCheck.Run(Loop.Create(FromText("(1-s)/((s+1)(s+2))")), FromText("0.5(s+0.5)/s"), new CheckOptions());
+        Assert.True(nonMinimumPhase.Step.UndershootPercent > 1);
+        Assert.DoesNotContain(nonMinimumPhase.Warnings, w => w.Contains("Padé", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Run_StrictlyProperPlant_InitialEffortIsHighFrequencyGain()
     {
         // u(0+) equals the compensator's high-frequency gain when C·G·H is strictly proper (common practice).
