@@ -9,8 +9,19 @@ namespace CompAssist.Core.Discrete;
 /// <summary>Re-proves a loop with its controller sampled (see <see cref="SampledLoopProof"/>).</summary>
 public static class SampledLoop
 {
-    /// <summary>Proves the sampled loop over <paramref name="samples"/> sampling periods.</summary>
-    public static SampledLoopProof Prove(Loop loop, DiscreteTransferFunction controller, bool computationDelay, int samples = 2000)
+    // Shortest record, and the most samples the horizon may grow to (a slow lag tail at a fast sample time).
+    private const int MinSamples = 2000;
+    private const int MaxSamples = 4_000_000;
+
+    // Time constants of the slowest closed-loop pole the record covers at first: e^-12 ≈ 6e-6 of its residue.
+    private const double SlowestTimeConstants = 12.0;
+
+    /// <summary>
+    /// Proves the sampled loop over <paramref name="samples"/> sampling periods, or (null) over enough of them to
+    /// see it settle: 12 time constants of the slowest closed-loop pole (−T/ln|z|), at least 2,000, grown
+    /// fourfold while the step has not settled into the 2 % band, up to 4,000,000.
+    /// </summary>
+    public static SampledLoopProof Prove(Loop loop, DiscreteTransferFunction controller, bool computationDelay, int? samples = null)
     {
         ArgumentNullException.ThrowIfNull(loop);
         ArgumentNullException.ThrowIfNull(controller);
@@ -50,16 +61,49 @@ public static class SampledLoop
             warnings.Add($"UNSTABLE when sampled: a closed-loop pole has |z| = {largest:G4} ≥ 1. Sample faster or redesign with the sampling delay in mind.");
         }
 
-        // Step at the sampling instants: e = r ∓ measurement, u = C e (delayed), y = G u.
-        var c = new Stream(controller);
-        var g = new Stream(plant);
-        var m = new Stream(path);
-        var queue = new Queue<double>(Enumerable.Repeat(0.0, delaySamples));
         if (plant.Numerator[0] != 0 || path.Numerator[0] != 0)
         {
             warnings.Add("The plant has direct feedthrough; the sampled step treats it with one sample of delay.");
         }
 
+        // Final value: exact T(1) = Nc·Ng/char at z = 1 for unity feedback; otherwise the last sample.
+        var unity = loop.Feedback.Poles.Length == 0 && loop.Feedback.Zeros.Length == 0 && loop.Feedback.Gain == 1.0;
+        var exactFinal = largest >= 1 ? double.NaN
+            : unity ? (nc * Polynomial.FromRoots(plant.Zeros, plant.Gain)).Evaluate(1.0) / characteristic.Evaluate(1.0)
+            : (double?)null;
+        var count = samples ?? InitialSamples(largest);
+        while (true)
+        {
+            var response = Step(controller, plant, path, sign, delaySamples, count);
+            var final = exactFinal ?? response.Values[^1];
+            var metrics = StepMetrics.Measure(response, double.IsNaN(final) ? 1.0 : final);
+            if (samples is not null || largest >= 1 || double.IsFinite(metrics.SettlingTime2Percent) || count >= MaxSamples)
+            {
+                return new SampledLoopProof(poles, largest, response, metrics, delaySamples, warnings.ToImmutable());
+            }
+
+            count = Math.Min(MaxSamples, count * 4);
+        }
+    }
+
+    private static int InitialSamples(double largest)
+    {
+        if (!(largest < 1) || largest == 0)
+        {
+            return MinSamples;
+        }
+
+        var wanted = SlowestTimeConstants / -Math.Log(largest);
+        return (int)Math.Clamp(Math.Ceiling(wanted), MinSamples, MaxSamples);
+    }
+
+    /// <summary>The step at the sampling instants: e = r ∓ measurement, u = C e (delayed), y = G u.</summary>
+    private static SampledResponse Step(DiscreteTransferFunction controller, DiscreteTransferFunction plant, DiscreteTransferFunction path, double sign, int delaySamples, int samples)
+    {
+        var c = new Stream(controller);
+        var g = new Stream(plant);
+        var m = new Stream(path);
+        var queue = new Queue<double>(Enumerable.Repeat(0.0, delaySamples));
         var y = ImmutableArray.CreateBuilder<double>(samples + 1);
         for (var k = 0; k <= samples; k++)
         {
@@ -72,14 +116,7 @@ public static class SampledLoop
             y.Add(yk);
         }
 
-        var response = new SampledResponse(t, y.MoveToImmutable());
-        // Final value: exact T(1) = Nc·Ng/char at z = 1 for unity feedback; otherwise the last sample.
-        var unity = loop.Feedback.Poles.Length == 0 && loop.Feedback.Zeros.Length == 0 && loop.Feedback.Gain == 1.0;
-        var final = largest >= 1 ? double.NaN
-            : unity ? (nc * Polynomial.FromRoots(plant.Zeros, plant.Gain)).Evaluate(1.0) / characteristic.Evaluate(1.0)
-            : response.Values[^1];
-        var metrics = StepMetrics.Measure(response, double.IsNaN(final) ? 1.0 : final);
-        return new SampledLoopProof(poles, largest, response, metrics, delaySamples, warnings.ToImmutable());
+        return new SampledResponse(controller.SampleTime, y.MoveToImmutable());
     }
 
     private static double Delay(Queue<double> queue, double value)

@@ -49,4 +49,22 @@ public class SampledLoopTests
         Assert.Contains(slow.Warnings, w => w.StartsWith("UNSTABLE when sampled", StringComparison.Ordinal));
         Assert.Equal(1, slow.DelaySamples);
     }
+
+    [Fact]
+    public void Prove_SlowClosedLoopTailAtAFastSampleTime_HorizonCoversItsSettling()
+    {
+        // 1/(s+1) with C = 0.5(s + 0.05)/s: s² + 1.5s + 0.025 has a pole at −0.0169 whose step residue is about
+        // −0.67 (partial fractions), so the 2 % settling time is about 207 s; at T = 0.01 s the first 2,000
+        // samples cover only 20 s. The sampled figure must match the continuous one (T small), not read "inf".
+        var loop = Loop.Create(FromText("1/(s+1)"));
+        var c = FromText("0.5(s+0.05)/s");
+        var d = Discretizer.Discretize(c, 0.01, DiscretizationMethod.Tustin).Value!.Discrete;
+        var proof = SampledLoop.Prove(loop, d, computationDelay: false);
+        var continuous = LoopCheck.Run(loop, c, new CheckOptions());
+        Assert.True(proof.Stable);
+        Assert.True(double.IsFinite(proof.Metrics.SettlingTime2Percent), "sampled settling is finite");
+        Assert.InRange(continuous.Step.SettlingTime2Percent, 190, 225);
+        Tolerance.Close(continuous.Step.SettlingTime2Percent, proof.Metrics.SettlingTime2Percent, 0.01, what: "sampled vs continuous settling");
+        Assert.True(proof.Step.Values.Length > 20_000);
+    }
 }
