@@ -6,13 +6,12 @@ namespace CompAssist.Core.Pictures;
 /// <summary>A text strip of a step response: the curve, the final value and its ±2 % band, time along the bottom.</summary>
 public static class StepStripRenderer
 {
-    private const int LabelWidth = 8;
+    private const int MinLabelWidth = 8;
 
     /// <summary>Renders <paramref name="response"/> in <paramref name="width"/>×<paramref name="height"/> characters.</summary>
     public static string Render(SampledResponse response, double finalValue, int width, int height, PictureStyle style)
     {
         ArgumentNullException.ThrowIfNull(response);
-        var columns = Math.Max(width - LabelWidth, 10);
         var rows = Math.Max(height - 1, 3);
         var values = response.Values;
         var top = Math.Max(values.Max(), finalValue * 1.02);
@@ -21,6 +20,10 @@ public static class StepStripRenderer
         {
             top = bottom + 1;
         }
+
+        // Every row's axis stays in one column, however long the widest value label is.
+        var labelWidth = Math.Max(MinLabelWidth, new[] { top, bottom, finalValue }.Max(v => SPlaneRenderer.Number(v).Length) + 2);
+        var columns = Math.Max(width - labelWidth, 10);
 
         var unicode = style == PictureStyle.Unicode;
         var sub = unicode ? 4 : 1;
@@ -83,11 +86,11 @@ public static class StepStripRenderer
                 line[c] = cells[r, c];
             }
 
-            sb.Append(label.PadLeft(LabelWidth - 2)).Append(' ').Append(unicode ? '┤' : '|').Append(new string(line).TrimEnd()).Append('\n');
+            sb.Append(label.PadLeft(labelWidth - 2)).Append(' ').Append(unicode ? '┤' : '|').Append(new string(line).TrimEnd()).Append('\n');
         }
 
         var horizon = $"{SPlaneRenderer.Number(response.Horizon)} s";
-        sb.Append(new string(' ', LabelWidth)).Append('0').Append(horizon.PadLeft(columns - 1)).Append('\n');
+        sb.Append(new string(' ', labelWidth)).Append('0').Append(horizon.PadLeft(columns - 1)).Append('\n');
         return sb.ToString();
     }
 }

@@ -33,16 +33,20 @@ public static class CheckJsonSection
         w.WriteStartObject("check");
         w.WriteBoolean("stable", check.Stable);
         var m = check.Step;
+
+        // A diverging step has no final value, overshoot or settling: its figures are "nan", not numbers read
+        // off the divergence.
+        double V(double x) => check.Stable ? x : double.NaN;
         w.WriteStartObject("step");
-        n(w, "overshootPercent", m.OvershootPercent);
-        n(w, "peakTime", m.PeakTime);
-        n(w, "riseTime", m.RiseTime);
-        n(w, "settlingTime2", m.SettlingTime2Percent);
-        n(w, "settlingTime5", m.SettlingTime5Percent);
-        n(w, "finalValue", m.FinalValue);
-        n(w, "peakValue", m.PeakValue);
-        n(w, "undershootPercent", m.UndershootPercent);
-        n(w, "undershootTime", m.UndershootTime);
+        n(w, "overshootPercent", V(m.OvershootPercent));
+        n(w, "peakTime", V(m.PeakTime));
+        n(w, "riseTime", V(m.RiseTime));
+        n(w, "settlingTime2", V(m.SettlingTime2Percent));
+        n(w, "settlingTime5", V(m.SettlingTime5Percent));
+        n(w, "finalValue", V(m.FinalValue));
+        n(w, "peakValue", V(m.PeakValue));
+        n(w, "undershootPercent", V(m.UndershootPercent));
+        n(w, "undershootTime", V(m.UndershootTime));
         w.WriteBoolean("grazes2", m.Grazes2Percent);
         w.WriteBoolean("grazes5", m.Grazes5Percent);
         n(w, "shownWindow", check.ShownWindow);

@@ -24,7 +24,9 @@ public static class CheckTextSection
             sb.AppendLine($"  {c.Name,-25} {measured,9}   {(c.Required is { } r ? c.BoundSymbol + " " + N(r, 4) : "-"),9}   {(c.Predicted is { } p ? (c.Name == RequirementChecks.PeakTime && double.IsPositiveInfinity(p) ? "none" : N(p, 4)) : "-"),9}   {result}".TrimEnd());
         }
 
-        sb.AppendLine($"  final value {N(m.FinalValue, 6)}; steady-state error r − y: step {N(Clean(check.StepError), 4)}, ramp {N(check.RampError, 4)}");
+        sb.AppendLine(check.Stable
+            ? $"  final value {N(m.FinalValue, 6)}; steady-state error r − y: step {N(Clean(check.StepError), 4)}, ramp {N(check.RampError, 4)}"
+            : "  final value and steady-state errors: none (the closed loop is unstable; the step diverges)");
         var k = check.ErrorConstants;
         sb.AppendLine($"  loop type {k.SystemType}; error constants Kp = {N(k.Kp, 5)}, Kv = {N(k.Kv, 5)}, Ka = {N(k.Ka, 5)}");
         TextWrap.AppendTo(sb, "(predictions are the second-order figures of the target pole, not measurements; overshoot and undershoot are measured toward and away from the final value; rise time is 10–90 %; settling time is the last entry into the band; \"none\" means the response never overshoots)");

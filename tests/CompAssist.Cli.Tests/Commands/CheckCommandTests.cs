@@ -70,6 +70,16 @@ public class CheckCommandTests
         Assert.Equal(2, doc.RootElement.GetProperty("check").GetProperty("unstableRoots").GetInt32());
         Assert.Equal("unstable", doc.RootElement.GetProperty("verdict").GetProperty("status").GetString());
         Assert.All(doc.RootElement.GetProperty("check").GetProperty("requirements").EnumerateArray(), r => Assert.False(r.TryGetProperty("passes", out var p) && p.GetBoolean()));
+
+        // A diverging step has no final value or overshoot: "nan", not the last sample of the divergence.
+        var step = doc.RootElement.GetProperty("check").GetProperty("step");
+        foreach (var figure in (string[])["finalValue", "overshootPercent", "settlingTime2", "peakValue"])
+        {
+            Assert.Equal("nan", step.GetProperty(figure).GetString());
+        }
+
+        var (_, text, _) = CliRunner.Run("check", "--plant", "1/(s(s+1)(s+2))", "--compensator", "10");
+        Assert.Contains("final value and steady-state errors: none (the closed loop is unstable", text, StringComparison.Ordinal);
     }
 
     [Theory]
