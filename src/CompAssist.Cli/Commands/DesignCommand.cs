@@ -70,6 +70,13 @@ internal static class DesignCommand
             return null;
         }
 
+        if (parse.GetValue(s.Kinds) is { } kindsText && DesignSettings.ParseKinds(kindsText) is null)
+        {
+            stderr.WriteLine($"error: --kinds '{kindsText}' is not a list of compensator types. Write them with commas, e.g. --kinds lead,lead-lag,pid; the types are: {string.Join(", ", DesignWorkflow.SupportedTypes)}.");
+            code = CliApplication.InputError;
+            return null;
+        }
+
         if (parse.GetValue(s.Objective) is { } objectiveName && Core.Search.SearchObjectiveNames.TryParse(objectiveName) is null)
         {
             stderr.WriteLine($"error: --objective '{objectiveName}' is not an objective. Use one of: {string.Join(", ", Core.Search.SearchObjectiveNames.All)}.");

@@ -29,6 +29,8 @@ internal sealed class DesignSettings
 
     public Option<bool> EqualFactor { get; } = new("--equal-factor") { Description = "Lead-lag: fix the gain from the error constant first and use one ratio for lead and lag." };
 
+    public Option<string?> Kinds { get; } = new("--kinds") { Description = "Search several compensator types and keep the best, e.g. lead,lead-lag,pid (choices that do not apply to a type are reported as unused by it)." };
+
     public Option<bool> Corner { get; } = new("--corner") { Description = "Design at the corner of the region (no search): the least aggressive target the second-order figures allow." };
 
     public Option<string?> Objective { get; } = new("--objective") { Description = "What the search minimizes among the designs that meet: " + string.Join(", ", Core.Search.SearchObjectiveNames.All) + " (default least-hf-gain)." };
@@ -47,7 +49,27 @@ internal sealed class DesignSettings
         }
 
         var objective = parse.GetValue(Objective) is { } name ? Core.Search.SearchObjectiveNames.TryParse(name)!.Value : Core.Search.SearchObjective.HighFrequencyGain;
-        return Core.Workflow.DesignWorkflow.Search(input, new Core.Search.SearchOptions { Objective = objective, Pinned = Pinned(parse) });
+        var options = new Core.Search.SearchOptions { Objective = objective, Pinned = Pinned(parse) };
+        return parse.GetValue(Kinds) is { } kinds
+            ? Core.Workflow.DesignWorkflow.SearchKinds(input, ParseKinds(kinds)!, options)
+            : Core.Workflow.DesignWorkflow.Search(input, options);
+    }
+
+    /// <summary>The kinds of a comma-separated list ("lead,pid"), or null when a name is not a kind.</summary>
+    public static IReadOnlyList<Core.Synthesis.CompensatorKind>? ParseKinds(string text)
+    {
+        var kinds = new List<Core.Synthesis.CompensatorKind>();
+        foreach (var name in text.Split(',', StringSplitOptions.TrimEntries))
+        {
+            if (Core.Synthesis.CompensatorKindNames.TryParse(name) is not { } kind)
+            {
+                return null;
+            }
+
+            kinds.Add(kind);
+        }
+
+        return kinds.Count > 0 ? kinds : null;
     }
 
     /// <summary>The free choices given on the command line: the search keeps them as given.</summary>
@@ -76,7 +98,7 @@ internal sealed class DesignSettings
     public void AddTo(Command command)
     {
         Loop.AddTo(command);
-        foreach (var option in new Option[] { Type, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Corner, Objective, Save })
+        foreach (var option in new Option[] { Type, Kinds, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Corner, Objective, Save })
         {
             command.Options.Add(option);
         }

@@ -211,6 +211,8 @@ public static class DesignJsonReport
         {
             SearchSection.Write(w, search);
         }
+
+        KindComparisonSection.Write(w, report.KindsCompared);
         w.WriteStartObject("locus");
         LocusReport.WriteFeatures(w, report.Locus);
         w.WriteEndObject();
@@ -221,9 +223,5 @@ public static class DesignJsonReport
     private static void Number(Utf8JsonWriter w, string name, double x) => JsonNumbers.Write(w, name, x);
 
     /// <summary>The command-line name of a compensator kind.</summary>
-    public static string KindName(CompensatorKind kind) => kind switch
-    {
-        CompensatorKind.LeadLag => "lead-lag",
-        _ => kind.ToString().ToLowerInvariant(),
-    };
+    public static string KindName(CompensatorKind kind) => CompensatorKindNames.NameOf(kind);
 }

@@ -54,6 +54,7 @@ public static class DesignTextReport
         if (report.Search is { } search)
         {
             SearchSection.Append(sb, search);
+            KindComparisonSection.Append(sb, report.KindsCompared, kindName, search.Objective);
         }
 
         sb.AppendLine(design.Placement is { } placement ? $"Synthesis ({kindName}, lead placement: {PlacementNames.NameOf(placement)})" : $"Synthesis ({kindName})");

@@ -17,6 +17,9 @@ public sealed record DesignReport(TargetSelection Selection, Design Design, Loop
     /// <summary>The search that chose this design's target and choices, when one ran.</summary>
     public Search.SearchOutcome? Search { get; init; }
 
+    /// <summary>When several kinds were searched: each kind's best, in the order asked (the winner's kind is this report's).</summary>
+    public System.Collections.Immutable.ImmutableArray<Search.KindResult> KindsCompared { get; init; } = [];
+
     /// <summary>The proof's verdict: stable, and every requirement holds nominally and at every corner.</summary>
     public LoopVerdict Verdict => LoopVerdict.Of(Check, Robustness);
 }

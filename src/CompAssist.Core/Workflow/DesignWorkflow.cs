@@ -19,19 +19,10 @@ namespace CompAssist.Core.Workflow;
 public static class DesignWorkflow
 {
     /// <summary>Compensator families this build can synthesize.</summary>
-    public static IReadOnlyList<string> SupportedTypes { get; } = ["lead", "lag", "lead-lag", "pd", "pi", "pid"];
+    public static IReadOnlyList<string> SupportedTypes => CompensatorKindNames.All;
 
-    /// <summary>The kind for a command-line type name, or null.</summary>
-    public static CompensatorKind? KindOf(string name) => name.ToLowerInvariant() switch
-    {
-        "lead" => CompensatorKind.Lead,
-        "lag" => CompensatorKind.Lag,
-        "lead-lag" => CompensatorKind.LeadLag,
-        "pd" => CompensatorKind.PD,
-        "pi" => CompensatorKind.PI,
-        "pid" => CompensatorKind.PID,
-        _ => null,
-    };
+    /// <summary>The kind for a type name, or null.</summary>
+    public static CompensatorKind? KindOf(string name) => CompensatorKindNames.TryParse(name);
 
     /// <summary>Runs the design a case describes.</summary>
     public static DesignRun Run(CaseFile input)
@@ -136,6 +127,81 @@ public static class DesignWorkflow
         var searched = input with { Lead = winner.Choice.Lead, Slow = winner.Choice.Slow };
         return Prove(searched, loop, selection.Value with { Source = source }, winner.Design, outcome);
     }
+
+    /// <summary>
+    /// Searches each kind in <paramref name="kinds"/> and returns the best one's full report, with every kind's
+    /// best beside it: a kind that meets beats one that does not, then the lower objective, then the smaller
+    /// shortfall, then the order given. Refused when no kind can be designed at all.
+    /// </summary>
+    /// <exception cref="OperationCanceledException">The search was cancelled.</exception>
+    public static DesignRun SearchKinds(CaseFile input, IReadOnlyList<CompensatorKind> kinds, SearchOptions options, CancellationToken cancellation = default)
+    {
+        ArgumentNullException.ThrowIfNull(input);
+        ArgumentNullException.ThrowIfNull(kinds);
+        ArgumentNullException.ThrowIfNull(options);
+        if (kinds.Count == 0)
+        {
+            throw new ArgumentException("At least one kind is needed.", nameof(kinds));
+        }
+
+        var runs = new List<(CompensatorKind Kind, DesignRun Run)>();
+        foreach (var kind in kinds.Distinct())
+        {
+            var run = Search(input with { CompensatorType = CompensatorKindNames.NameOf(kind) }, options with { Pinned = options.Pinned & ApplicablePins(kind) }, null, cancellation);
+            runs.Add((kind, run));
+            if (run.FieldError is not null)
+            {
+                return run;
+            }
+        }
+
+        var rows = runs.Select(r => Row(r.Kind, r.Run, options.Pinned & ~ApplicablePins(r.Kind))).ToImmutableArray();
+        var designed = runs.Where(r => r.Run.IsSuccess).ToList();
+        if (designed.Count == 0)
+        {
+            var first = runs[0].Run.Problem!;
+            return DesignRun.Failed(new Problem(
+                $"No kind asked for can be designed here ({string.Join("; ", rows.Select(r => $"{r.Kind}: {r.Refusal}"))})",
+                first.Hint));
+        }
+
+        var best = designed
+            .Select((r, i) => (r.Run, Score: Score(r.Run.Report!), Order: i))
+            .OrderBy(x => x.Score.Group).ThenBy(x => x.Score.Value).ThenBy(x => x.Order)
+            .First().Run;
+        return DesignRun.Success(best.Report! with { KindsCompared = rows });
+    }
+
+    private static (int Group, double Value) Score(DesignReport report) =>
+        report.Search is { } s
+            ? (s.Meets ? 0 : 1, s.Meets ? s.Winner.Objective : s.Winner.Violation)
+            : (report.Verdict.Meets ? 0 : 1, 0.0);
+
+    private static KindResult Row(CompensatorKind kind, DesignRun run, SearchPins unused)
+    {
+        var unusedText = SearchPinNames.Settings(unused);
+        if (!run.IsSuccess)
+        {
+            return new KindResult(CompensatorKindNames.NameOf(kind), false, double.NaN, double.NaN, run.Problem?.Message ?? "the input could not be read", unusedText);
+        }
+
+        var report = run.Report!;
+        return report.Search is { } s
+            ? new KindResult(CompensatorKindNames.NameOf(kind), s.Meets, s.Winner.Objective, s.Winner.Violation, null, unusedText)
+            : new KindResult(CompensatorKindNames.NameOf(kind), report.Verdict.Meets, double.NaN, double.NaN, null, unusedText);
+    }
+
+    /// <summary>The free choices a kind has at all (a stated choice outside them is unused by that kind).</summary>
+    private static SearchPins ApplicablePins(CompensatorKind kind) => kind switch
+    {
+        CompensatorKind.Lead => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle,
+        CompensatorKind.LeadLag => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle | SearchPins.ZeroFraction | SearchPins.LagMargin,
+        CompensatorKind.Lag => SearchPins.ZeroFraction | SearchPins.LagMargin,
+        CompensatorKind.PI => SearchPins.ZeroFraction,
+        CompensatorKind.PD => SearchPins.FilterRatio,
+        CompensatorKind.PID => SearchPins.ZeroFraction | SearchPins.FilterRatio,
+        _ => SearchPins.None,
+    };
 
     /// <summary>The loop, the kind and the kind's options checked: what both the corner design and the search need first.</summary>
     private static (Loop Loop, CompensatorKind Kind, DesignRun? Failure) Prepare(CaseFile input)

@@ -47,6 +47,22 @@ public class DesignCommandTests
     }
 
     [Fact]
+    public void Design_Kinds_ComparesEachAndKeepsTheBest()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "25/(s(s+5))", "--overshoot", "10", "--settling", "1.2", "--kinds", "lead,pi", "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var rows = doc.RootElement.GetProperty("kindsCompared").EnumerateArray().ToList();
+        Assert.Equal(["lead", "pi"], rows.Select(r => r.GetProperty("kind").GetString()));
+        Assert.Equal("lead", doc.RootElement.GetProperty("compensator").GetProperty("type").GetString());
+
+        var (bad, stdout, stderr) = CliRunner.Run("design", "--plant", "25/(s(s+5))", "--overshoot", "10", "--settling", "1.2", "--kinds", "lead,bogus");
+        Assert.Equal(2, bad);
+        Assert.Equal(string.Empty, stdout);
+        Assert.Contains("--kinds 'lead,bogus' is not a list of compensator types", stderr, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Design_Text_ShowsCompensatorProofAndCaution()
     {
         var (code, output, error) = CliRunner.Run("design", "--plant", Ogata, "--zeta", "0.5", "--wn", "4");
