@@ -94,11 +94,16 @@ internal sealed class EditorWindow : Runnable
         AddField(CaseField.PeakTime, "tp s", 7, 18, 6, 12);
         AddField(CaseField.Zeta, "ζ", 8, 0, 6, 10);
         AddField(CaseField.NaturalFrequency, "ωn", 8, 18, 6, 12);
-        AddField(CaseField.ErrorConstant, "steady", 9, 0, 8, FormWidth - 8);
-        AddField(CaseField.ActuatorLimit, "|u| max", 10, 0, 8, FormWidth - 8);
-        AddField(CaseField.Variations, "vary", 11, 0, 8, FormWidth - 8);
-        Heading("Compensator (F3 kind, F4 place)", 12);
-        AddField(CaseField.PlacementValue, "value", 14, 0, 12, FormWidth - 12);
+        AddField(CaseField.RiseTime, "tr s", 9, 0, 6, 10);
+        AddField(CaseField.MaxSensitivity, "Ms", 9, 18, 6, 12);
+        AddField(CaseField.MinPhaseMargin, "PM °", 10, 0, 6, 10);
+        AddField(CaseField.MinGainMargin, "GM dB", 10, 18, 6, 12);
+        AddField(CaseField.MinDelayMargin, "DM s", 11, 0, 6, 10);
+        AddField(CaseField.ActuatorLimit, "|u| ≤", 11, 18, 6, 12);
+        AddField(CaseField.ErrorConstant, "steady", 12, 0, 8, FormWidth - 8);
+        AddField(CaseField.Variations, "vary", 13, 0, 8, FormWidth - 8);
+        Heading("Compensator (F3 kind, F4 place)", 14);
+        AddField(CaseField.PlacementValue, "value", 16, 0, 12, FormWidth - 12);
         Add(bar, compensatorLine, errorCaret, errorMessage, planeHeading, plane, stepHeading, step, designLine, digest, message, hints, promptBox, page);
         BuildKeys();
         PlaceFixedViews();
@@ -465,7 +470,7 @@ internal sealed class EditorWindow : Runnable
             }
         }
 
-        compensatorLine.Y = RowOf(13);
+        compensatorLine.Y = RowOf(15);
         if (focused?.Error is { } e)
         {
             var caretColumn = Math.Clamp(focused.BoxX + e.Index, 0, FormWidth - 1);

@@ -44,4 +44,19 @@ public enum CaseField
 
     /// <summary>The placement's own number: the fixed zero, the fixed pole, the pole/zero ratio, or the pole to cancel.</summary>
     PlacementValue,
+
+    /// <summary>Largest 10–90 % rise time, s (checked on the simulated loop).</summary>
+    RiseTime,
+
+    /// <summary>Smallest phase margin, degrees.</summary>
+    MinPhaseMargin,
+
+    /// <summary>Smallest gain margin, dB (upward, and downward where the loop has one).</summary>
+    MinGainMargin,
+
+    /// <summary>Smallest delay margin, s.</summary>
+    MinDelayMargin,
+
+    /// <summary>Largest sensitivity peak Ms.</summary>
+    MaxSensitivity,
 }

@@ -41,6 +41,11 @@ public static class CaseFieldText
             CaseField.ActuatorLimit => N(c.Check.ActuatorLimit),
             CaseField.Variations => string.Join(", ", c.Variations.Select(VariationText)),
             CaseField.PlacementValue => N(PlacementValue(c.Lead)),
+            CaseField.RiseTime => N(r.MaxRiseTime),
+            CaseField.MinPhaseMargin => N(r.MinPhaseMarginDegrees),
+            CaseField.MinGainMargin => N(r.MinGainMarginDb),
+            CaseField.MinDelayMargin => N(r.MinDelayMargin),
+            CaseField.MaxSensitivity => N(r.MaxSensitivityPeak),
             _ => throw new ArgumentOutOfRangeException(nameof(field), field, null),
         };
     }
@@ -100,15 +105,25 @@ public static class CaseFieldText
                 };
 
             case CaseField.Overshoot:
-                return Number(text, x => x > 0 && x < 100, "an overshoot between 0 and 100 percent", v => c with { Requirements = r with { MaxOvershootPercent = v } });
+                return Requirement(text, "an overshoot between 0 and 100 percent", v => r with { MaxOvershootPercent = v }, c);
             case CaseField.SettlingTime:
-                return Number(text, x => x > 0, "a settling time above 0 s", v => c with { Requirements = r with { MaxSettlingTime = v } });
+                return Requirement(text, "a settling time above 0 s", v => r with { MaxSettlingTime = v }, c);
             case CaseField.PeakTime:
-                return Number(text, x => x > 0, "a peak time above 0 s", v => c with { Requirements = r with { MaxPeakTime = v } });
+                return Requirement(text, "a peak time above 0 s", v => r with { MaxPeakTime = v }, c);
             case CaseField.Zeta:
-                return Number(text, x => x > 0 && x <= 1, "a damping ratio above 0 and at most 1", v => c with { Requirements = r with { Zeta = v } });
+                return Requirement(text, "a damping ratio between 0 and 1", v => r with { Zeta = v }, c);
             case CaseField.NaturalFrequency:
-                return Number(text, x => x > 0, "a natural frequency above 0 rad/s", v => c with { Requirements = r with { NaturalFrequency = v } });
+                return Requirement(text, "a natural frequency above 0 rad/s", v => r with { NaturalFrequency = v }, c);
+            case CaseField.RiseTime:
+                return Requirement(text, "a rise time above 0 s", v => r with { MaxRiseTime = v }, c);
+            case CaseField.MinPhaseMargin:
+                return Requirement(text, "a phase margin between 0° and 180°", v => r with { MinPhaseMarginDegrees = v }, c);
+            case CaseField.MinGainMargin:
+                return Requirement(text, "a gain margin in dB above 0", v => r with { MinGainMarginDb = v }, c);
+            case CaseField.MinDelayMargin:
+                return Requirement(text, "a delay margin above 0 s", v => r with { MinDelayMargin = v }, c);
+            case CaseField.MaxSensitivity:
+                return Requirement(text, "a sensitivity peak above 1, e.g. 2 (6 dB)", v => r with { MaxSensitivityPeak = v }, c);
             case CaseField.ActuatorLimit:
                 return Number(text, x => x > 0, "an actuator limit above 0", v => c with { Check = c.Check with { ActuatorLimit = v } });
             case CaseField.ErrorConstant:
@@ -224,6 +239,10 @@ public static class CaseFieldText
 
         return FieldEdit.Accepted(c with { Variations = list.ToImmutable() });
     }
+
+    // A requirement field: the number is read here, its range is the one rule of RequirementRanges.
+    private static FieldEdit Requirement(string text, string what, Func<double?, Requirements> with, CaseFile c) =>
+        Number(text, x => RequirementRanges.Check(with(x)) is null, what, v => c with { Requirements = with(v) });
 
     private static FieldEdit Number(string text, Func<double, bool> valid, string what, Func<double?, CaseFile> apply)
     {

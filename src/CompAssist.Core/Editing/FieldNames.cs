@@ -20,6 +20,11 @@ public static class FieldNames
         CaseField.ActuatorLimit => "|u| limit",
         CaseField.Variations => "vary",
         CaseField.PlacementValue => "placement value",
+        CaseField.RiseTime => "rise time s",
+        CaseField.MinPhaseMargin => "phase margin °",
+        CaseField.MinGainMargin => "gain margin dB",
+        CaseField.MinDelayMargin => "delay margin s",
+        CaseField.MaxSensitivity => "Ms",
         _ => throw new ArgumentOutOfRangeException(nameof(field), field, null),
     };
 }

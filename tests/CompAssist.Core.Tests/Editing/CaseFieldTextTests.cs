@@ -27,6 +27,22 @@ public class CaseFieldTextTests
         }
     }
 
+    [Theory]
+    [InlineData(CaseField.MinPhaseMargin, "45")]
+    [InlineData(CaseField.MinGainMargin, "6")]
+    [InlineData(CaseField.MinDelayMargin, "0.05")]
+    [InlineData(CaseField.MaxSensitivity, "2")]
+    [InlineData(CaseField.RiseTime, "0.4")]
+    public void Apply_MarginAndRiseRequirements_SetTheRequirementAndClearWhenEmpty(CaseField field, string text)
+    {
+        var edit = CaseFieldText.Apply(Demo(), field, text);
+        Assert.True(edit.IsSuccess, edit.Error?.Message);
+        Assert.Equal(text, CaseFieldText.Of(edit.Case!, field));
+        var cleared = CaseFieldText.Apply(edit.Case!, field, string.Empty);
+        Assert.True(cleared.IsSuccess);
+        Assert.Equal(string.Empty, CaseFieldText.Of(cleared.Case!, field));
+    }
+
     [Fact]
     public void Apply_BadPlant_PointsAtTheOffendingCharacter()
     {
@@ -49,6 +65,12 @@ public class CaseFieldTextTests
     [InlineData(CaseField.Overshoot, "100")]
     [InlineData(CaseField.Overshoot, "-5")]
     [InlineData(CaseField.Zeta, "1.5")]
+    [InlineData(CaseField.Zeta, "1")]
+    [InlineData(CaseField.MinPhaseMargin, "200")]
+    [InlineData(CaseField.MinGainMargin, "-3")]
+    [InlineData(CaseField.MinDelayMargin, "0")]
+    [InlineData(CaseField.MaxSensitivity, "0.8")]
+    [InlineData(CaseField.RiseTime, "-1")]
     [InlineData(CaseField.SettlingTime, "0")]
     [InlineData(CaseField.Band, "3")]
     [InlineData(CaseField.PadeOrder, "11")]
