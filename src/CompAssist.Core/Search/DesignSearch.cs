@@ -157,7 +157,8 @@ public static class DesignSearch
     /// <summary>The kind's placements and continuous choices at a target (the given choice excluded, pinned ones kept).</summary>
     private static IEnumerable<SearchChoice> Variants(Loop loop, CompensatorKind kind, TargetPole target, LeadOptions lead, SlowPoleOptions slow, SearchPins pinned)
     {
-        if (!pinned.HasFlag(SearchPins.Placement) && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+        var free = SearchPinNames.ChoicesOf(kind) & ~pinned;
+        if (free.HasFlag(SearchPins.Placement))
         {
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Bisector }, slow);
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Beneath }, slow);
@@ -172,7 +173,7 @@ public static class DesignSearch
             }
         }
 
-        if (!pinned.HasFlag(SearchPins.StageAngle) && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+        if (free.HasFlag(SearchPins.StageAngle))
         {
             foreach (var angle in (double[])[40, 50, 70, 80])
             {
@@ -180,7 +181,7 @@ public static class DesignSearch
             }
         }
 
-        if (!pinned.HasFlag(SearchPins.ZeroFraction) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
+        if (free.HasFlag(SearchPins.ZeroFraction))
         {
             foreach (var fraction in (double[])[0.03, 0.06, 0.15, 0.25, 0.4])
             {
@@ -197,7 +198,7 @@ public static class DesignSearch
             }
         }
 
-        if (!pinned.HasFlag(SearchPins.LagMargin) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag)
+        if (free.HasFlag(SearchPins.LagMargin))
         {
             foreach (var margin in (double[])[1.25, 1.5, 2.0])
             {
@@ -205,7 +206,7 @@ public static class DesignSearch
             }
         }
 
-        if (!pinned.HasFlag(SearchPins.FilterRatio) && kind is CompensatorKind.PD or CompensatorKind.PID)
+        if (free.HasFlag(SearchPins.FilterRatio))
         {
             foreach (var ratio in (double[])[4, 7, 10, 15, 25])
             {
@@ -267,22 +268,23 @@ public static class DesignSearch
 
     private static IEnumerable<SearchChoice> Neighbours(CompensatorKind kind, SearchPins pinned, SearchChoice c, double step)
     {
+        var free = SearchPinNames.ChoicesOf(kind) & ~pinned;
         var p = c.Target.Point;
         foreach (var f in (double[])[Math.Exp(step), Math.Exp(-step)])
         {
             yield return c with { Target = TargetPole.At(new Complex(p.Real * f, p.Imaginary)) };
             yield return c with { Target = TargetPole.At(new Complex(p.Real, p.Imaginary * f)) };
-            if (!pinned.HasFlag(SearchPins.Ratio) && c.Lead.Placement == LeadPlacement.Ratio && c.Lead.Ratio is { } r && kind is CompensatorKind.Lead or CompensatorKind.LeadLag)
+            if (free.HasFlag(SearchPins.Ratio) && c.Lead.Placement == LeadPlacement.Ratio && c.Lead.Ratio is { } r)
             {
                 yield return c with { Lead = c.Lead with { Ratio = Math.Max(1.05, r * f) } };
             }
 
-            if (!pinned.HasFlag(SearchPins.ZeroFraction) && kind is CompensatorKind.Lag or CompensatorKind.LeadLag or CompensatorKind.PI or CompensatorKind.PID)
+            if (free.HasFlag(SearchPins.ZeroFraction))
             {
                 yield return c with { Slow = c.Slow with { ZeroFraction = Math.Clamp(c.Slow.ZeroFraction * f, 0.005, 0.9) } };
             }
 
-            if (!pinned.HasFlag(SearchPins.FilterRatio) && c.Slow.FilterRatio is { } n && kind is CompensatorKind.PD or CompensatorKind.PID)
+            if (free.HasFlag(SearchPins.FilterRatio) && c.Slow.FilterRatio is { } n)
             {
                 yield return c with { Slow = c.Slow with { FilterRatio = Math.Max(1.5, n * f) } };
             }

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using CompAssist.Core.Synthesis;
 
 namespace CompAssist.Core.Search;
 
@@ -14,6 +15,21 @@ public static class SearchPinNames
         (SearchPins.LagMargin, "lag-margin", "the lag ratio's safety factor"),
         (SearchPins.FilterRatio, "filter-ratio", "the derivative filter ratio"),
     ];
+
+    /// <summary>
+    /// The free choices a kind has at all: what the search varies for it, and what a stated choice outside
+    /// them is (unused by that kind).
+    /// </summary>
+    public static SearchPins ChoicesOf(CompensatorKind kind) => kind switch
+    {
+        CompensatorKind.Lead => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle,
+        CompensatorKind.LeadLag => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle | SearchPins.ZeroFraction | SearchPins.LagMargin,
+        CompensatorKind.Lag => SearchPins.ZeroFraction | SearchPins.LagMargin,
+        CompensatorKind.PI => SearchPins.ZeroFraction,
+        CompensatorKind.PD => SearchPins.FilterRatio,
+        CompensatorKind.PID => SearchPins.ZeroFraction | SearchPins.FilterRatio,
+        _ => SearchPins.None,
+    };
 
     /// <summary>The machine names of the pins set in <paramref name="pins"/>, in table order.</summary>
     public static ImmutableArray<string> Names(SearchPins pins) => [.. Table.Where(t => pins.HasFlag(t.Pin)).Select(t => t.Name)];

@@ -147,7 +147,7 @@ public static class DesignWorkflow
         var runs = new List<(CompensatorKind Kind, DesignRun Run)>();
         foreach (var kind in kinds.Distinct())
         {
-            var run = Search(input with { CompensatorType = CompensatorKindNames.NameOf(kind) }, options with { Pinned = options.Pinned & ApplicablePins(kind) }, null, cancellation);
+            var run = Search(input with { CompensatorType = CompensatorKindNames.NameOf(kind) }, options with { Pinned = options.Pinned & SearchPinNames.ChoicesOf(kind) }, null, cancellation);
             runs.Add((kind, run));
             if (run.FieldError is not null)
             {
@@ -155,7 +155,7 @@ public static class DesignWorkflow
             }
         }
 
-        var rows = runs.Select(r => Row(r.Kind, r.Run, options.Pinned & ~ApplicablePins(r.Kind))).ToImmutableArray();
+        var rows = runs.Select(r => Row(r.Kind, r.Run, options.Pinned & ~SearchPinNames.ChoicesOf(r.Kind))).ToImmutableArray();
         var designed = runs.Where(r => r.Run.IsSuccess).ToList();
         if (designed.Count == 0)
         {
@@ -190,18 +190,6 @@ public static class DesignWorkflow
             ? new KindResult(CompensatorKindNames.NameOf(kind), s.Meets, s.Winner.Objective, s.Winner.Violation, null, unusedText)
             : new KindResult(CompensatorKindNames.NameOf(kind), report.Verdict.Meets, double.NaN, double.NaN, null, unusedText);
     }
-
-    /// <summary>The free choices a kind has at all (a stated choice outside them is unused by that kind).</summary>
-    private static SearchPins ApplicablePins(CompensatorKind kind) => kind switch
-    {
-        CompensatorKind.Lead => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle,
-        CompensatorKind.LeadLag => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle | SearchPins.ZeroFraction | SearchPins.LagMargin,
-        CompensatorKind.Lag => SearchPins.ZeroFraction | SearchPins.LagMargin,
-        CompensatorKind.PI => SearchPins.ZeroFraction,
-        CompensatorKind.PD => SearchPins.FilterRatio,
-        CompensatorKind.PID => SearchPins.ZeroFraction | SearchPins.FilterRatio,
-        _ => SearchPins.None,
-    };
 
     /// <summary>The loop, the kind and the kind's options checked: what both the corner design and the search need first.</summary>
     private static (Loop Loop, CompensatorKind Kind, DesignRun? Failure) Prepare(CaseFile input)
