@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Numerics;
 using System.Text.RegularExpressions;
+using CompAssist.Core.Common;
 using CompAssist.Core.Parsing;
 
 namespace CompAssist.Core.Editing;
@@ -62,7 +63,7 @@ public static partial class TargetText
     }
 
     private static (Complex? Point, ParseError? Error) Finite(string text, double re, double im) =>
-        double.IsFinite(re) && double.IsFinite(im) && Math.Abs(re) <= 1e12 && Math.Abs(im) <= 1e12
+        double.IsFinite(re) && double.IsFinite(im) && Math.Abs(re) <= NumberRange.Largest && Math.Abs(im) <= NumberRange.Largest
             ? (new Complex(re, Math.Abs(im)), null)
             : (null, Whole(text, "The target is too far out (beyond 1e12 rad/s)"));
 

@@ -1,3 +1,4 @@
+using CompAssist.Core.Common;
 using System.Globalization;
 using System.Numerics;
 using CompAssist.Core.Model;
@@ -324,8 +325,7 @@ public static class ExpressionParser
             {
                 case TokenKind.Number:
                     Advance();
-                    var magnitude = Math.Abs(token.Number);
-                    if (magnitude > 1e12 || (magnitude != 0.0 && magnitude < 1e-12) || !double.IsFinite(token.Number))
+                    if (!NumberRange.Contains(token.Number))
                     {
                         throw Failure(ParseMessages.NumberOutOfRange(token.Text), token);
                     }

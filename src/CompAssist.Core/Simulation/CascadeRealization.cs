@@ -103,14 +103,24 @@ public static class CascadeRealization
 
             if (Poles.Count == 1)
             {
-                // (b1 s + b0)/(s + a0): A = −a0, B = 1, C = b0 − b1 a0, D = b1.
+                // (b1 s + b0)/(s + a0) with the state scaled by w = |a0| (x = w·ξ of the plain form ξ' = −a0 ξ + u),
+                // so the state is of the size of the input: A = −a0, B = w, C = (b0 − b1 a0)/w, D = b1.
                 var a0 = den[0];
-                return (StateSpace.Create(new double[,] { { -a0 } }, [1.0], [b[0] - (b[1] * a0)], b[1]), scale);
+                var w = a0 != 0 ? Math.Abs(a0) : 1.0;
+                return (StateSpace.Create(new double[,] { { -a0 } }, [w], [(b[0] - (b[1] * a0)) / w], b[1]), scale);
             }
 
-            // (b2 s² + b1 s + b0)/(s² + a1 s + a0), controllable form.
+            // (b2 s² + b1 s + b0)/(s² + a1 s + a0): the controllable form ξ1' = ξ2, ξ2' = −a0 ξ1 − a1 ξ2 + u with
+            // the states scaled by w = √|a0| (x1 = w² ξ1, x2 = w ξ2). Unscaled, the form holds a0 (up to ω², 1e14
+            // for a fast pair) beside 1, and the matrix exponential of such a non-normal matrix loses every digit;
+            // scaled, each entry is of the size of the poles and each state of the size of the input.
             double c0 = den[0], c1 = den[1];
-            return (StateSpace.Create(new double[,] { { 0, 1 }, { -c0, -c1 } }, [0.0, 1.0], [b[0] - (b[2] * c0), b[1] - (b[2] * c1)], b[2]), scale);
+            var v = c0 != 0 ? Math.Sqrt(Math.Abs(c0)) : (c1 != 0 ? Math.Abs(c1) : 1.0);
+            return (StateSpace.Create(
+                new double[,] { { 0, v }, { -c0 / v, -c1 } },
+                [0.0, v],
+                [(b[0] - (b[2] * c0)) / (v * v), (b[1] - (b[2] * c1)) / v],
+                b[2]), scale);
         }
     }
 }

@@ -19,7 +19,7 @@ public static class Synthesizer
         ArgumentNullException.ThrowIfNull(target);
         ArgumentNullException.ThrowIfNull(lead);
         ArgumentNullException.ThrowIfNull(slow);
-        return kind switch
+        return WithinRange(kind switch
         {
             CompensatorKind.Lead => WithRequirementCheck(LeadDesigner.Design(loop, target, lead), loop, requirement),
             CompensatorKind.Lag => Lag(loop, target, slow, requirement),
@@ -28,7 +28,30 @@ public static class Synthesizer
             CompensatorKind.PI => Pi(loop, target, slow, requirement),
             CompensatorKind.PID => Pid(loop, target, lead, slow, requirement),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown compensator kind."),
-        };
+        });
+    }
+
+    /// <summary>
+    /// Refuses a compensator whose gain, zeros or poles leave the range of <see cref="NumberRange"/>: it could
+    /// not be read back, and a loop with such coefficients (a gain of 1e13 on a plant in seconds) is beyond
+    /// what a step or a root can be computed on faithfully — and beyond any actuator.
+    /// </summary>
+    private static Outcome<Design> WithinRange(Outcome<Design> outcome)
+    {
+        if (!outcome.IsSuccess)
+        {
+            return outcome;
+        }
+
+        var c = outcome.Value.Compensator.TransferFunction;
+        var roots = c.Zeros.Concat(c.Poles).Select(r => r.Magnitude);
+        var worst = new[] { Math.Abs(c.Gain) }.Concat(roots).Where(m => !NumberRange.Contains(m)).DefaultIfEmpty(double.NaN).Max();
+        return double.IsNaN(worst)
+            ? outcome
+            : Outcome<Design>.Refused(
+                $"The compensator would need a coefficient of {F(worst)}, outside the range this tool accepts (1e-12 … 1e12 in magnitude)",
+                "Choose a slower target (a longer settling time or peak time), or rescale the time unit so the loop's numbers stay in range.",
+                Setting.Target);
     }
 
     private static Outcome<Design> Lag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement) =>

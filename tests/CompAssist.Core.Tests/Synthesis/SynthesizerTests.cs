@@ -22,6 +22,22 @@ public class SynthesizerTests
     }
 
     [Fact]
+    public void Design_GainBeyondTheAcceptedRange_RefusedNamingTheTarget()
+    {
+        // Two lead stages of pole/zero ratio 36.74 on 1/(s(s+1)) for a target near 1.2e5 rad/s need a factored gain
+        // near 3.5e13: beyond what the parser accepts, so the design could not be read back, and beyond any actuator.
+        var loop = LoopOf("1/(s(s+1))");
+        var lead = new LeadOptions { Placement = LeadPlacement.Ratio, Ratio = 36.74 };
+        var outcome = Synthesizer.Design(loop, TargetPole.At(new Complex(-81470, 84249)), CompensatorKind.Lead, lead, new SlowPoleOptions(), null);
+        Assert.False(outcome.IsSuccess);
+        Assert.Equal(Common.Setting.Target, outcome.Problem!.About);
+        Assert.Contains("outside the range", outcome.Problem.Message, StringComparison.Ordinal);
+
+        // The same placement for a target 1000 times slower stays in range and is designed.
+        Assert.True(Synthesizer.Design(loop, TargetPole.At(new Complex(-81.47, 84.249)), CompensatorKind.Lead, lead, new SlowPoleOptions(), null).IsSuccess);
+    }
+
+    [Fact]
     public void Lag_Ogata5thEx6_8_MatchesBook()
     {
         // Ogata, Modern Control Engineering, 5th ed., Example 6-8 (from memory): G = 1.06/(s(s+1)(s+2)) with

@@ -1,0 +1,23 @@
+namespace CompAssist.Core.Common;
+
+/// <summary>
+/// The magnitudes this tool accepts for a number in an expression, and so the magnitudes a design may
+/// produce: anything it prints must read back. 1e-12 … 1e12 keeps every coefficient of the loops a lab
+/// writes in seconds, milliseconds or hours inside the range where the root finding and the matrix
+/// exponential keep their digits.
+/// </summary>
+public static class NumberRange
+{
+    /// <summary>The largest accepted magnitude.</summary>
+    public const double Largest = 1e12;
+
+    /// <summary>The smallest accepted non-zero magnitude.</summary>
+    public const double Smallest = 1e-12;
+
+    /// <summary>True when x is finite and zero or of a magnitude within [<see cref="Smallest"/>, <see cref="Largest"/>].</summary>
+    public static bool Contains(double x)
+    {
+        var m = Math.Abs(x);
+        return double.IsFinite(x) && (m == 0.0 || (m >= Smallest && m <= Largest));
+    }
+}
