@@ -8,6 +8,7 @@ internal static class SettingFlags
     private static readonly (Setting Setting, string Flag)[] Table =
     [
         (Setting.Plant, "--plant \"EXPR\""),
+        (Setting.Compensator, "--compensator \"EXPR\""),
         (Setting.Target, "--target RE,IM"),
         (Setting.DampingAndNaturalFrequency, "--zeta Z --wn W"),
         (Setting.SteadyState, "--kp, --kv, --ka, --step-error, --ramp-error or --parabola-error"),

@@ -9,6 +9,9 @@ public enum Setting
     /// <summary>The plant G(s).</summary>
     Plant,
 
+    /// <summary>A compensator given to be proved (rather than designed).</summary>
+    Compensator,
+
     /// <summary>An explicit target point.</summary>
     Target,
 

@@ -1,3 +1,4 @@
+using CompAssist.Core.Common;
 using CompAssist.Core.Numerics;
 
 namespace CompAssist.Core.Model;
@@ -98,6 +99,53 @@ public sealed class Loop
         }
 
         return new CharacteristicFunction(open.PoleFactors, SignFactor * open.Gain, open.ZeroFactors);
+    }
+
+    /// <summary>
+    /// L(∞) of C·G·H without its delay, with the feedback sign applied (so the closed loop is 1 + L = 0):
+    /// 0 when the loop is strictly proper, the high-frequency gain when it is biproper.
+    /// </summary>
+    public double SignedGainAtInfinity(TransferFunction compensator)
+    {
+        var open = OpenLoop(compensator);
+        return open.RelativeDegree == 0 ? SignFactor * open.Gain : 0.0;
+    }
+
+    /// <summary>
+    /// Why this compensator gives no usable finite closed loop although C·G·H is proper, or null. Without a
+    /// delay: 1 + L(∞) = 0, so the characteristic polynomial loses its leading term and a closed-loop pole sits
+    /// at infinity (the loop is not well posed: an algebraic loop with unit gain). With a delay: |L(∞)| = 1,
+    /// so a chain of infinitely many closed-loop roots approaches the imaginary axis (a neutral loop that never
+    /// settles). Both are decided on L(∞) to a relative 1e-9.
+    /// </summary>
+    public Problem? WellPosednessProblem(TransferFunction compensator)
+    {
+        ArgumentNullException.ThrowIfNull(compensator);
+        var open = OpenLoop(compensator);
+        if (open.RelativeDegree != 0)
+        {
+            return null;
+        }
+
+        var atInfinity = SignFactor * open.Gain;
+        const double tolerance = 1e-9;
+        if (Delay == 0 && Math.Abs(1.0 + atInfinity) <= tolerance * Math.Max(1.0, Math.Abs(atInfinity)))
+        {
+            return new Problem(
+                "The loop is not well posed: C·G·H tends to −1 at high frequency (1 + L(∞) = 0), so the closed loop has a pole at infinity and no finite response",
+                "Change the compensator gain or the feedback sign, or add a pole to the compensator so that C·G·H falls off at high frequency.",
+                Setting.Compensator);
+        }
+
+        if (Delay > 0 && Math.Abs(Math.Abs(atInfinity) - 1.0) <= tolerance)
+        {
+            return new Problem(
+                "With the loop delay and |C·G·H| = 1 at high frequency, infinitely many closed-loop roots approach the imaginary axis: the loop never settles",
+                "Lower the compensator's high-frequency gain below 1/|G·H(∞)|, or add a pole to the compensator so that C·G·H falls off at high frequency.",
+                Setting.Compensator);
+        }
+
+        return null;
     }
 
     /// <summary>A copy with another plant.</summary>

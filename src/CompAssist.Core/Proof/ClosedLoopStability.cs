@@ -23,6 +23,17 @@ public static class ClosedLoopStability
             return new StabilityJudgement(approximate == 0, approximate, null, null);
         }
 
+        var atInfinity = Math.Abs(loop.SignedGainAtInfinity(compensator));
+        if (atInfinity > 1.0)
+        {
+            // A neutral loop: 1 + L0(s)·e^(−θs) = 0 has a chain of roots with Re s → ln|L0(∞)|/θ > 0.
+            return new StabilityJudgement(
+                false,
+                Math.Max(1, approximate),
+                null,
+                $"With the exact delay and |C·G·H| = {atInfinity:G4} > 1 at high frequency, the closed loop has infinitely many roots in the right half-plane (their real parts tend to ln|L(∞)|/θ = {Math.Log(atInfinity) / loop.Delay:G4} 1/s): UNSTABLE whatever the Padé roots say. Do not use this design.");
+        }
+
         var exact = NyquistCount.Count(loop.OpenLoop(compensator).Scaled(loop.SignFactor));
         var order = loop.PadeOrder;
         return exact.Outcome switch

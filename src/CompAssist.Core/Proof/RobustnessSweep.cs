@@ -94,6 +94,11 @@ public static class RobustnessSweep
 
         var plant = TransferFunction.FromFactors(gain, loop.Plant.Zeros, poles, loop.Plant.Delay);
         var varied = loop.WithPlant(plant);
+        if (varied.WellPosednessProblem(compensator) is not null)
+        {
+            return Unstable(factors, double.NaN, requirements);
+        }
+
         try
         {
             var roots = RootFinder.Find(varied.Characteristic(compensator)).Roots;

@@ -31,9 +31,9 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
 
         var design = outcome.Value;
         var c = design.Compensator.TransferFunction;
-        if (!loop.RationalOpenLoop(c).IsProper)
+        if (!loop.RationalOpenLoop(c).IsProper || loop.WellPosednessProblem(c) is not null)
         {
-            return null; // more zeros than poles around the loop: no finite closed loop to prove
+            return null; // more zeros than poles around the loop, or 1 + L(∞) = 0: no finite closed loop to prove
         }
 
         ImmutableArray<Complex> roots;

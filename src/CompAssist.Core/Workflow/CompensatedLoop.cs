@@ -41,6 +41,8 @@ public sealed record CompensatedLoop(Loop? Loop, TransferFunction? Compensator, 
                 "Add a filter pole to the compensator (e.g. a derivative filter)."));
         }
 
-        return new(loop, c.Value, null, null);
+        return loop.WellPosednessProblem(c.Value) is { } illPosed
+            ? new(null, null, null, illPosed)
+            : new(loop, c.Value, null, null);
     }
 }

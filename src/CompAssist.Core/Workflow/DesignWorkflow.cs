@@ -231,6 +231,13 @@ public static class DesignWorkflow
                 Setting.FilterRatio));
         }
 
+        if (loop.WellPosednessProblem(design.Compensator.TransferFunction) is { } illPosed)
+        {
+            return DesignRun.Failed(new Problem(
+                "The designed compensator leaves no usable closed loop. " + illPosed.Message,
+                "Choose another target or compensator kind; a strictly proper compensator (a lag, or a PD or PID with its derivative filter) keeps C·G·H falling off at high frequency."));
+        }
+
         try
         {
             var compensator = design.Compensator.TransferFunction;

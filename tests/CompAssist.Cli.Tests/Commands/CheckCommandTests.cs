@@ -35,6 +35,46 @@ public class CheckCommandTests
         Assert.True(check.GetProperty("effort").GetProperty("peak").GetDouble() >= 4.0);
     }
 
+    [Theory]
+    [InlineData("check", "(s+1)/(s+2)", "-1", false, "not well posed")]
+    [InlineData("check", "(s+1)/(s+2)", "1", true, "not well posed")]
+    [InlineData("check", "exp(-s)", "1", false, "imaginary axis")]
+    [InlineData("check", "-exp(-0.2s)", "1", true, "imaginary axis")]
+    [InlineData("plot", "(s+1)/(s+2)", "-1", false, "not well posed")]
+    [InlineData("plot", "exp(-s)", "1", false, "imaginary axis")]
+    public void Check_LoopWithUnitGainAtInfinity_RefusedAsInputNotAnInternalError(string command, string plant, string compensator, bool positive, string expected)
+    {
+        // 1 + L(∞) = 0: the characteristic polynomial loses its leading term (a closed-loop pole at infinity);
+        // with a delay and |L(∞)| = 1 the roots of 1 + L0·e^(−θs) form a chain towards the imaginary axis.
+        var args = new List<string> { command, "--plant", plant, "--compensator", compensator };
+        if (positive)
+        {
+            args.Add("--positive-feedback");
+        }
+
+        if (command == "plot")
+        {
+            args.AddRange(["--out", Path.Combine(Path.GetTempPath(), $"ca-illposed-{Guid.NewGuid():N}.svg")]);
+        }
+
+        var (code, output, error) = CliRunner.Run([.. args]);
+        Assert.Equal(3, code);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(expected, error, StringComparison.Ordinal);
+        Assert.DoesNotContain("internal error", error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Check_DelayLoopWithGainAboveOneAtInfinity_Unstable()
+    {
+        // 1 + a·e^(−θs) = 0 has the roots s = (ln a + j(2k+1)π)/θ exactly: for a = 1.5 and θ = 1 all sit at
+        // Re s = ln 1.5 = 0.405, so the loop is unstable whatever a Padé approximant says.
+        var (code, output, _) = CliRunner.Run("check", "--plant", "exp(-s)", "--compensator", "1.5");
+        Assert.Equal(4, code);
+        Assert.Contains("UNSTABLE", output, StringComparison.Ordinal);
+        Assert.Contains("0.4055", output, StringComparison.Ordinal);
+    }
+
     [Fact]
     public void Check_Text_ShowsStepMarginsAndCaution()
     {
