@@ -52,7 +52,13 @@ public static class CliApplication
                 return EditCommand.Open(null, ascii: false, noColor: false, stderr);
             }
 
-            return root.Parse(args).Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
+            var parse = root.Parse(args);
+            if (parse.Errors.Count > 0)
+            {
+                return UsageErrors.Report(parse, stderr);
+            }
+
+            return parse.Invoke(new InvocationConfiguration { Output = stdout, Error = stderr, EnableDefaultExceptionHandler = false });
         }
         catch (Exception e) when (e is not OutOfMemoryException)
         {

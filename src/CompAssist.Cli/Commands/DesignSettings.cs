@@ -9,23 +9,23 @@ internal sealed class DesignSettings
 
     public Option<string?> Type { get; } = new("--type") { Description = "Compensator type: lead, lag, lead-lag, pd, pi, pid." };
 
-    public Option<double?> ZeroFraction { get; } = new("--zero-fraction") { Description = "Lag/PI zero at this fraction of the target's real part (default 0.1)." };
+    public RealOption ZeroFraction { get; } = new("--zero-fraction") { Description = "Lag/PI zero at this fraction of the target's real part (default 0.1)." };
 
-    public Option<double?> AngleBudget { get; } = new("--angle-budget") { Description = "Largest angle in degrees the lag/PI may cost at the target (default 5)." };
+    public RealOption AngleBudget { get; } = new("--angle-budget") { Description = "Largest angle in degrees the lag/PI may cost at the target (default 5)." };
 
-    public Option<double?> Margin { get; } = new("--lag-margin") { Description = "Safety factor on the lag ratio (default 1.1)." };
+    public RealOption Margin { get; } = new("--lag-margin") { Description = "Safety factor on the lag ratio (default 1.1)." };
 
-    public Option<double?> FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at this multiple of the PD zero (default: ideal derivative)." };
+    public RealOption FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at this multiple of the PD zero (default: ideal derivative)." };
 
     public Option<string?> Placement { get; } = new("--placement") { Description = "Lead placement: beneath, bisector, cancel, fixed-zero, fixed-pole, ratio." };
 
-    public Option<double?> Zero { get; } = new("--zero") { Description = "Zero location for fixed-zero; the plant pole to cancel for cancel." };
+    public RealOption Zero { get; } = new("--zero") { Description = "Zero location for fixed-zero; the plant pole to cancel for cancel." };
 
-    public Option<double?> Pole { get; } = new("--pole") { Description = "Pole location for fixed-pole." };
+    public RealOption Pole { get; } = new("--pole") { Description = "Pole location for fixed-pole." };
 
-    public Option<double?> Ratio { get; } = new("--ratio") { Description = "Pole/zero ratio (> 1) for the ratio placement." };
+    public RealOption Ratio { get; } = new("--ratio") { Description = "Pole/zero ratio (> 1) for the ratio placement." };
 
-    public Option<double?> MaxStageAngle { get; } = new("--max-stage-angle") { Description = "Largest lead angle per stage in degrees (default 60)." };
+    public RealOption MaxStageAngle { get; } = new("--max-stage-angle") { Description = "Largest lead angle per stage in degrees (default 60)." };
 
     public Option<bool> EqualFactor { get; } = new("--equal-factor") { Description = "Lead-lag: fix the gain from the error constant first and use one ratio for lead and lag." };
 
@@ -35,7 +35,7 @@ internal sealed class DesignSettings
 
     public Option<string?> Objective { get; } = new("--objective") { Description = "What the search minimizes among the designs that meet: " + string.Join(", ", Core.Search.SearchObjectiveNames.All) + " (default least-hf-gain)." };
 
-    public Option<string?> Save { get; } = new("--save") { Description = "Also save the case as used (flags included) to this TOML file, atomically." };
+    public PathOption Save { get; } = new("--save") { Description = "Also save the case as used (flags included) to this TOML file, atomically." };
 
     /// <summary>
     /// The design the flags ask for: the search over the region (the default when the requirements span one),

@@ -12,9 +12,9 @@ internal static class DiscretizeCommand
     public static Command Create(TextWriter stdout, TextWriter stderr)
     {
         var compensator = new Option<string?>("--compensator") { Description = "Compensator C(s), e.g. \"4.7(s+2.93)/(s+5.46)\"." };
-        var sampleTime = new Option<double?>("--sample-time") { Description = "Sample time T in seconds." };
+        var sampleTime = new RealOption("--sample-time") { Description = "Sample time T in seconds." };
         var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward (forward only with a warning).", DefaultValueFactory = _ => "tustin" };
-        var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s (prewarp method)." };
+        var prewarp = new RealOption("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s (prewarp method)." };
         var json = new Option<bool>("--json") { Description = "Machine-readable JSON on stdout." };
         var command = new Command("discretize", "Discretize a compensator: coefficients in ascending powers of z^-1 and the difference equation.");
         foreach (var option in new Option[] { compensator, sampleTime, method, prewarp, json })

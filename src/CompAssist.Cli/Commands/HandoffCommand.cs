@@ -11,13 +11,13 @@ internal static class HandoffCommand
     public static Command Create(TextWriter stdout, TextWriter stderr)
     {
         var settings = new DesignSettings();
-        var output = new Option<string?>("--out") { Description = "Folder to write the files into (created if missing)." };
-        var sampleTime = new Option<double?>("--sample-time") { Description = "Sample time in seconds (default: recommended from the crossover)." };
+        var output = new PathOption("--out") { Description = "Folder to write the files into (created if missing)." };
+        var sampleTime = new RealOption("--sample-time") { Description = "Sample time in seconds (default: recommended from the crossover)." };
         var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward.", DefaultValueFactory = _ => "tustin" };
-        var prewarp = new Option<double?>("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
+        var prewarp = new RealOption("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
         var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; code up to 24 bits).", DefaultValueFactory = _ => "double" };
-        var signalBits = new Option<int?>("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default half the word)." };
+        var signalBits = new WholeOption("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default half the word)." };
         var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping or back-calculation.", DefaultValueFactory = _ => "clamping" };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
         var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");

@@ -22,47 +22,47 @@ internal sealed class LoopSettings
 
     public Option<bool> PositiveFeedback { get; } = new("--positive-feedback") { Description = "Positive feedback (0° angle condition)." };
 
-    public Option<int?> PadeOrder { get; } = new("--pade-order") { Description = "Padé order for delays in root finding (default 3)." };
+    public WholeOption PadeOrder { get; } = new("--pade-order") { Description = "Padé order for delays in root finding (default 3)." };
 
     public Option<string?> Target { get; } = new("--target") { Description = "Target pole RE,IM, e.g. --target=-2,3.46." };
 
-    public Option<double?> Zeta { get; } = new("--zeta") { Description = "Damping ratio ζ of the target (with --wn)." };
+    public RealOption Zeta { get; } = new("--zeta") { Description = "Damping ratio ζ of the target (with --wn)." };
 
-    public Option<double?> Wn { get; } = new("--wn") { Description = "Natural frequency ωn of the target, rad/s (with --zeta)." };
+    public RealOption Wn { get; } = new("--wn") { Description = "Natural frequency ωn of the target, rad/s (with --zeta)." };
 
-    public Option<double?> Overshoot { get; } = new("--overshoot") { Description = "Largest percent overshoot." };
+    public RealOption Overshoot { get; } = new("--overshoot") { Description = "Largest percent overshoot." };
 
-    public Option<double?> Settling { get; } = new("--settling") { Description = "Largest settling time, s." };
+    public RealOption Settling { get; } = new("--settling") { Description = "Largest settling time, s." };
 
-    public Option<int?> Band { get; } = new("--band") { Description = "Settling band in percent: 2 (default) or 5." };
+    public WholeOption Band { get; } = new("--band") { Description = "Settling band in percent: 2 (default) or 5." };
 
-    public Option<double?> PeakTime { get; } = new("--peak-time") { Description = "Largest peak time, s." };
+    public RealOption PeakTime { get; } = new("--peak-time") { Description = "Largest peak time, s." };
 
-    public Option<double?> RiseTime { get; } = new("--rise-time") { Description = "Largest 10-90 % rise time, s (checked on the simulated loop)." };
+    public RealOption RiseTime { get; } = new("--rise-time") { Description = "Largest 10-90 % rise time, s (checked on the simulated loop)." };
 
-    public Option<double?> MinPhaseMargin { get; } = new("--min-phase-margin") { Description = "Smallest phase margin, degrees." };
+    public RealOption MinPhaseMargin { get; } = new("--min-phase-margin") { Description = "Smallest phase margin, degrees." };
 
-    public Option<double?> MinGainMargin { get; } = new("--min-gain-margin") { Description = "Smallest gain margin, dB (upward, and downward where the loop has one)." };
+    public RealOption MinGainMargin { get; } = new("--min-gain-margin") { Description = "Smallest gain margin, dB (upward, and downward where the loop has one)." };
 
-    public Option<double?> MinDelayMargin { get; } = new("--min-delay-margin") { Description = "Smallest delay margin, s." };
+    public RealOption MinDelayMargin { get; } = new("--min-delay-margin") { Description = "Smallest delay margin, s." };
 
-    public Option<double?> MaxSensitivity { get; } = new("--max-sensitivity") { Description = "Largest sensitivity peak Ms, e.g. 2 (6 dB)." };
+    public RealOption MaxSensitivity { get; } = new("--max-sensitivity") { Description = "Largest sensitivity peak Ms, e.g. 2 (6 dB)." };
 
-    public Option<double?> Kp { get; } = new("--kp") { Description = "Smallest acceptable position constant Kp." };
+    public RealOption Kp { get; } = new("--kp") { Description = "Smallest acceptable position constant Kp." };
 
-    public Option<double?> Kv { get; } = new("--kv") { Description = "Smallest acceptable velocity constant Kv (1/s)." };
+    public RealOption Kv { get; } = new("--kv") { Description = "Smallest acceptable velocity constant Kv (1/s)." };
 
-    public Option<double?> Ka { get; } = new("--ka") { Description = "Smallest acceptable acceleration constant Ka (1/s²)." };
+    public RealOption Ka { get; } = new("--ka") { Description = "Smallest acceptable acceleration constant Ka (1/s²)." };
 
-    public Option<double?> StepError { get; } = new("--step-error") { Description = "Largest steady-state error for a unit step (0…1)." };
+    public RealOption StepError { get; } = new("--step-error") { Description = "Largest steady-state error for a unit step (0…1)." };
 
-    public Option<double?> RampError { get; } = new("--ramp-error") { Description = "Largest steady-state error for a unit ramp." };
+    public RealOption RampError { get; } = new("--ramp-error") { Description = "Largest steady-state error for a unit ramp." };
 
-    public Option<double?> ParabolaError { get; } = new("--parabola-error") { Description = "Largest steady-state error for a unit parabola." };
+    public RealOption ParabolaError { get; } = new("--parabola-error") { Description = "Largest steady-state error for a unit parabola." };
 
-    public Option<double?> ActuatorLimit { get; } = new("--actuator-limit") { Description = "Largest actuator command |u| the hardware delivers." };
+    public RealOption ActuatorLimit { get; } = new("--actuator-limit") { Description = "Largest actuator command |u| the hardware delivers." };
 
-    public Option<double?> ReferenceStep { get; } = new("--reference-step") { Description = "Reference step size for the actuator figures (default 1)." };
+    public RealOption ReferenceStep { get; } = new("--reference-step") { Description = "Reference step size for the actuator figures (default 1)." };
 
     public Option<string[]> Vary { get; } = new("--vary") { Description = "Plant variation for the robustness sweep, repeatable: gain=20% or pole=-2:10%.", AllowMultipleArgumentsPerToken = false };
 

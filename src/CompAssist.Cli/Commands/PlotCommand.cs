@@ -12,7 +12,7 @@ internal static class PlotCommand
         var settings = new DesignSettings();
         var compensator = new Option<string?>("--compensator") { Description = "Plot this compensator instead of designing one." };
         var kind = new Option<string>("--kind") { Description = "locus, poles, step or frequency.", DefaultValueFactory = _ => "locus" };
-        var output = new Option<string?>("--out") { Description = "Output file, .svg or .png." };
+        var output = new PathOption("--out") { Description = "Output file, .svg or .png." };
         var width = new Option<int>("--width") { Description = "Width in pixels (default 1000).", DefaultValueFactory = _ => 1000 };
         var height = new Option<int>("--height") { Description = "Height in pixels (default 700).", DefaultValueFactory = _ => 700 };
         var command = new Command("plot", "Export a picture of the design or of a given compensator as SVG or PNG.");

@@ -65,6 +65,11 @@ public static partial class CaseFileReader
     public static (CaseFile? Case, CaseFileError? Error) ReadFile(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
+        if (string.IsNullOrWhiteSpace(path) || path.Contains('\0', StringComparison.Ordinal))
+        {
+            return (null, new CaseFileError(path, "The case file name is empty or not a usable path", "Give the path of a TOML case file."));
+        }
+
         string text;
         try
         {

@@ -154,7 +154,9 @@ public class DesignCommandTests
         { ["design", "--plant", "1/s^2", "--zeta", "0.5"], 3, "error: ζ and ωn must be given together" },
         { ["design", "--plant", "1/s^2", "--zeta", "0.5", "--wn", "4", "--placement", "fixed-zero"], 3, "error: The fixed-zero placement needs a zero location" },
         { ["design", "/nonexistent/case.toml"], 2, "error: /nonexistent/case.toml: Cannot read the case file" },
-        { ["design", "--plant", "1/s^2", "--zeta", "zero"], 1, "zero" },
+        { ["design", "--plant", "1/s^2", "--zeta", "zero"], 2, "'zero' is not a number" },
+        { ["design", ""], 2, "not a usable path" },
+        { ["design", "--plant", "1/s", "--save", " "], 2, "not a usable path" },
         { ["design", "--no-such-flag"], 1, "--no-such-flag" },
     };
 
