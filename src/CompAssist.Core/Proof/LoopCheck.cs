@@ -43,17 +43,29 @@ public static class LoopCheck
         var trajectory = StepAnalysis.SimulateToSettling(outputSystem, closedLoopPoles, final, Horizon(closedLoopPoles));
         var horizon = trajectory.Horizon;
         var measured = StepAnalysis.Measure(trajectory, stable ? final : trajectory.Value(trajectory.Count - 1));
+        var hasDelay = loop.Delay + compensator.Delay > 0;
+        var delayed = stable && hasDelay ? DelayLoopStep.Simulate(loop, compensator, horizon) : null;
+        var solution = !hasDelay ? StepSolution.Exact : delayed is not null ? StepSolution.ExactDelay : StepSolution.PadeApproximant;
+        if (delayed is not null)
+        {
+            measured = StepMetrics.Measure(delayed.Output, final);
+        }
+
         var window = stable ? ShownWindow(measured, horizon) : horizon;
         var h = window / options.Intervals;
-        var output = StepSimulator.Step(outputSystem, h, options.Intervals);
         var intervals = options.Intervals;
-        var effort = new Lazy<SampledResponse?>(() => effortSystem is not null ? StepSimulator.Step(effortSystem, h, intervals) : null);
+        var output = delayed is not null ? Resampled(delayed.Output, h, intervals) : StepSimulator.Step(outputSystem, h, options.Intervals);
+        var effort = new Lazy<SampledResponse?>(() => delayed is not null
+            ? (delayed.Effort is { } u ? Resampled(u, h, intervals) : null)
+            : effortSystem is not null ? StepSimulator.Step(effortSystem, h, intervals) : null);
         var metrics = measured with { SampleTime = h };
         var stepError = stable ? (Math.Abs(1.0 - final) <= RoundingLevel ? 0.0 : 1.0 - final) : double.NaN;
         var rampError = stable ? RampError(transfers.Output, stepError) : double.NaN;
         var constants = ErrorConstants.Of(loop, compensator);
         var margins = stable ? MarginAnalyzer.Analyze(loop, compensator) : null;
-        var effortFigures = Effort(effortSystem, closedLoopPoles, horizon, options);
+        var effortFigures = delayed?.Effort is { } exactEffort && effortSystem is not null
+            ? SampledEffort(exactEffort, effortSystem.D, options)
+            : Effort(effortSystem, closedLoopPoles, horizon, options);
 
         var warnings = ImmutableArray.CreateBuilder<string>();
         if (judgement.Note is { } note)
@@ -97,7 +109,12 @@ public static class LoopCheck
             warnings.Add("The compensator is improper (more zeros than poles): the actuator command contains an impulse at the step. Add a derivative filter.");
         }
 
-        if (stable && metrics.UndershootPercent > 0 && loop.Delay + compensator.Delay > 0
+        if (solution == StepSolution.PadeApproximant && stable)
+        {
+            warnings.Add($"The delay ({F(loop.Delay + compensator.Delay)} s) is so short beside the simulated {F(horizon)} s that the step is that of its Padé approximant of order {loop.PadeOrder}; at this ratio the two agree closely.");
+        }
+
+        if (solution == StepSolution.PadeApproximant && stable && metrics.UndershootPercent > 0
             && !loop.Plant.Zeros.Concat(compensator.Zeros).Concat(loop.Feedback.Poles).Any(z => z.Real > 0))
         {
             warnings.Add($"The undershoot of {F(metrics.UndershootPercent)} % comes from the Padé approximant of the delay (its right-half-plane zeros): the real delay holds the output still until it has passed and starts no wrong-way excursion. The other step figures are those of the approximant too.");
@@ -129,6 +146,7 @@ public static class LoopCheck
             Output = output,
             EffortResponse = effort,
             Step = metrics,
+            Solution = solution,
             ShownWindow = window,
             TailContinues = window < horizon,
             StepError = stepError,
@@ -206,6 +224,36 @@ public static class LoopCheck
         // A type-2 loop has T′(0) = 0: the terms cancel to rounding, which is zero, not a tiny error.
         var error = -(t0 * logDerivative.Real);
         return Math.Abs(error) <= RoundingLevel * Math.Abs(t0) * size ? 0.0 : error;
+    }
+
+    /// <summary>The response on another grid (t = k·h, k = 0…intervals), linear between the fine samples.</summary>
+    private static SampledResponse Resampled(SampledResponse fine, double h, int intervals)
+    {
+        var values = ImmutableArray.CreateBuilder<double>(intervals + 1);
+        var y = fine.Values;
+        for (var k = 0; k <= intervals; k++)
+        {
+            var j = k * h / fine.SampleTime;
+            var i = (int)Math.Floor(j);
+            values.Add(i >= y.Length - 1 ? y[^1] : y[i] + ((j - i) * (y[i + 1] - y[i])));
+        }
+
+        return new SampledResponse(h, values.MoveToImmutable());
+    }
+
+    private static EffortFigures SampledEffort(SampledResponse u, double initial, CheckOptions options)
+    {
+        var (peak, at) = (0.0, 0.0);
+        for (var k = 0; k < u.Values.Length; k++)
+        {
+            if (Math.Abs(u.Values[k]) > peak)
+            {
+                (peak, at) = (Math.Abs(u.Values[k]), u.TimeAt(k));
+            }
+        }
+
+        var scale = options.ReferenceStep;
+        return new EffortFigures(initial * scale, peak * Math.Abs(scale), at, scale, options.ActuatorLimit);
     }
 
     private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options)

@@ -30,6 +30,9 @@ public sealed record LoopCheckReport
     /// <summary>Measured step figures on the exact solution over the whole horizon (final value from the closed-loop DC gain when stable).</summary>
     public required StepMetrics Step { get; init; }
 
+    /// <summary>How <see cref="Step"/> was obtained: the exact solution, the exact-delay method of steps, or the Padé approximant.</summary>
+    public required StepSolution Solution { get; init; }
+
     /// <summary>Steady-state error r − y for a unit step (stable loops).</summary>
     public required double StepError { get; init; }
 

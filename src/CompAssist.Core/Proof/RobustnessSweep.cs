@@ -110,6 +110,11 @@ public static class RobustnessSweep
 
             var output = ClosedLoopTransfers.Of(varied, compensator, roots).Output;
             var m = StepAnalysis.Measure(CascadeRealization.Of(output), roots, output.DcGain, LoopCheck.Horizon(roots));
+            if (varied.Delay + compensator.Delay > 0 && DelayLoopStep.Simulate(varied, compensator, m.Horizon) is { } exact)
+            {
+                m = StepMetrics.Measure(exact.Output, output.DcGain); // the corner's verdict on the exact delay, as the nominal one
+            }
+
             var constants = ErrorConstants.Of(varied, compensator);
             var margins = requirements is { NeedsMargins: true } ? MarginAnalyzer.Analyze(varied, compensator) : null;
             return new RobustnessCorner(factors, true, m, RequirementChecks.Of(m, true, requirements, constants: constants, margins: margins), leastDamping);

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using CompAssist.Core.Proof;
+using CompAssist.Core.Simulation;
 
 namespace CompAssist.Core.Reporting;
 
@@ -55,7 +56,8 @@ public static class CheckJsonSection
         n(w, "rampError", check.RampError);
         n(w, "sampleTime", m.SampleTime);
         n(w, "horizon", m.Horizon);
-        w.WriteString("definitions", "measured on the exact solution toward the final value f: overshoot (peak - f)/|f| in %, 0 when the response never passes f; peakTime \"inf\" when there is no overshoot; undershoot: largest excursion away from f in % of |f|; rise 10-90 %; settling: last entry into the ±2 %/±5 % band, \"inf\" when not settled at the horizon; grazes: the response only touches the band edge, so the settling time is uncertain by a period; errors r - y");
+        w.WriteString("solution", check.Solution switch { StepSolution.ExactDelay => "exact-delay", StepSolution.PadeApproximant => "pade", _ => "exact" });
+        w.WriteString("definitions", "measured on the response that solution names (exact: the exact solution of the delay-free loop; exact-delay: the loop with its delays exact, by the method of steps on a fine grid; pade: the delay replaced by its Padé approximant) toward the final value f: overshoot (peak - f)/|f| in %, 0 when the response never passes f; peakTime \"inf\" when there is no overshoot; undershoot: largest excursion away from f in % of |f|; rise 10-90 %; settling: last entry into the ±2 %/±5 % band, \"inf\" when not settled at the horizon; grazes: the response only touches the band edge, so the settling time is uncertain by a period; errors r - y");
         w.WriteEndObject();
 
         w.WriteStartObject("errorConstants");

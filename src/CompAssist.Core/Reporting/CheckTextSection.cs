@@ -3,6 +3,7 @@ using System.Text;
 using CompAssist.Core.Model;
 using CompAssist.Core.Pictures;
 using CompAssist.Core.Proof;
+using CompAssist.Core.Simulation;
 
 namespace CompAssist.Core.Reporting;
 
@@ -15,7 +16,12 @@ public static class CheckTextSection
         ArgumentNullException.ThrowIfNull(sb);
         ArgumentNullException.ThrowIfNull(check);
         var m = check.Step;
-        sb.AppendLine($"Simulated unit step (exact solution over {N(m.Horizon, 4)} s; every figure solved on it, not read off samples)");
+        sb.AppendLine(check.Solution switch
+        {
+            StepSolution.ExactDelay => $"Simulated unit step (delays exact, by the method of steps over {N(m.Horizon, 4)} s on a grid of at least 100000 steps; figures read off the grid)",
+            StepSolution.PadeApproximant => $"Simulated unit step (delay by its Padé approximant, exact solution over {N(m.Horizon, 4)} s)",
+            _ => $"Simulated unit step (exact solution over {N(m.Horizon, 4)} s; every figure solved on it, not read off samples)",
+        });
         sb.AppendLine("  figure                     measured    required   predicted   result");
         foreach (var c in check.Checks)
         {

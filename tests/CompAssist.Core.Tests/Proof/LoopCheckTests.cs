@@ -2,6 +2,7 @@ using System.Numerics;
 using CompAssist.Core.Model;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
+using CompAssist.Core.Simulation;
 using CompAssist.Core.Targets;
 using CompAssist.Core.Tests.Support;
 
@@ -46,16 +47,21 @@ public class LoopCheckTests
     }
 
     [Fact]
-    public void Run_DelayLoopWithPadeDip_UndershootNamedAsTheApproximantsNotTheLoops()
+    public void Run_DelayLoop_StepOnTheExactDelayWithoutThePadeDip()
     {
         // e^(−θs) holds y at 0 for t < θ (common practice); the Padé approximant's right-half-plane zeros give a
-        // small wrong-way start that the real loop does not have. A right-half-plane zero of the plant does.
+        // small wrong-way start that the real loop does not have. The step is now taken on the exact delay, so
+        // there is no undershoot and y stays 0 until θ. A right-half-plane zero of the plant does undershoot.
         var delayed = LoopCheck.Run(Loop.Create(FromText("exp(-0.5s)/((s+1)(s+2))")), FromText("1.5(s+0.8)/s"), new CheckOptions());
-        Assert.True(delayed.Step.UndershootPercent > 0);
-        Assert.Contains(delayed.Warnings, w => w.Contains("comes from the Padé approximant", StringComparison.Ordinal));
+        Assert.Equal(StepSolution.ExactDelay, delayed.Solution);
+        Assert.Equal(0.0, delayed.Step.UndershootPercent);
+        var beforeDelay = delayed.Output.Values.Take((int)(0.5 / delayed.Output.SampleTime)).ToList();
+        Assert.All(beforeDelay, y => Assert.Equal(0.0, y));
+        Assert.DoesNotContain(delayed.Warnings, w => w.Contains("comes from the Padé approximant", StringComparison.Ordinal));
 
         var nonMinimumPhase = LoopCheck.Run(Loop.Create(FromText("(1-s)/((s+1)(s+2))")), FromText("0.5(s+0.5)/s"), new CheckOptions());
         Assert.True(nonMinimumPhase.Step.UndershootPercent > 1);
+        Assert.Equal(StepSolution.Exact, nonMinimumPhase.Solution);
         Assert.DoesNotContain(nonMinimumPhase.Warnings, w => w.Contains("Padé", StringComparison.Ordinal));
     }
 
