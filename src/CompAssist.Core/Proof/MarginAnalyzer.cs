@@ -74,7 +74,9 @@ public static class MarginAnalyzer
                 var (logMag, phase) = LogMagnitudeAndPhase(open, x);
 
                 // A jump of the phase through a pole or zero on the imaginary axis is no crossing.
-                if (Math.Abs(WrappedFromMinus180(phase)) < 1e-6 && double.IsFinite(logMag))
+                // One exactly at a grid point is seen from both sides: count it once.
+                var repeated = phases.Count > 0 && Math.Abs(x - phases[^1].Frequency) <= 1e-9 * x;
+                if (Math.Abs(WrappedFromMinus180(phase)) < 1e-6 && double.IsFinite(logMag) && !repeated)
                 {
                     phases.Add(new PhaseCrossing(x, Math.Exp(logMag)));
                 }
@@ -171,9 +173,15 @@ public static class MarginAnalyzer
         return double.IsFinite(l0) && l0 < 0 ? new PhaseCrossing(0.0, -l0) : null;
     }
 
-    /// <summary>ω = ∞ is a phase crossover of a biproper loop without delay whose high-frequency gain is negative.</summary>
+    /// <summary>
+    /// ω = ∞ is a phase crossover of a biproper loop without delay whose high-frequency gain is negative; with a
+    /// delay, a biproper loop crosses −180° infinitely often at magnitudes tending to |L(∞)|, beyond any grid:
+    /// their limit is listed at ω = ∞ so that the gain margin is never larger than 1/|L(∞)|.
+    /// </summary>
     private static PhaseCrossing? HighFrequencyCrossing(TransferFunction open) =>
-        open.RelativeDegree == 0 && open.Delay == 0 && open.Gain < 0 ? new PhaseCrossing(double.PositiveInfinity, -open.Gain) : null;
+        open.RelativeDegree == 0 && open.Gain != 0 && (open.Delay > 0 || open.Gain < 0)
+            ? new PhaseCrossing(double.PositiveInfinity, Math.Abs(open.Gain))
+            : null;
 
     private static double SelfCheck(TransferFunction open, ImmutableArray<GainCrossing> gains, ImmutableArray<PhaseCrossing> phases)
     {

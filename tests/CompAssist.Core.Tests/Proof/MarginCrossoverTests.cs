@@ -110,6 +110,29 @@ public class MarginCrossoverTests
     }
 
     [Fact]
+    public void Analyze_PhaseCrossingOnAGridPoint_ListedOnce()
+    {
+        // 10/(s(s+1)(s+5)): ∠L = −180° at ω = √5 where |L| = 1/3 (Routh: ultimate gain 30; common practice).
+        // √5 can land on a grid point, where both neighbouring intervals see the sign change.
+        var m = MarginAnalyzer.Analyze(Loop.Create(FromText("10/(s(s+1)(s+5))")), TransferFunction.Unity);
+        var crossing = Assert.Single(m.PhaseCrossings);
+        Tolerance.Close(Math.Sqrt(5), crossing.Frequency, 1e-10);
+        Tolerance.Close(20 * Math.Log10(3), m.GainMarginDb, 1e-9);
+    }
+
+    [Fact]
+    public void Analyze_BiproperLoopWithDelay_GainMarginNeverAboveTheHighFrequencyLimit()
+    {
+        // L = 0.6(s+1)/(s+3)·e^(−s): |L| rises from 0.2 to 0.6 while the delay turns the phase through −180°
+        // infinitely often, so the crossings' gain factors fall towards 1/0.6 and k·L has roots in the right
+        // half-plane for every k > 1/0.6 (a neutral loop; roots tend to Re s = ln(0.6k)). The margin is that limit.
+        var m = MarginAnalyzer.Analyze(Loop.Create(FromText("0.6(s+1)exp(-s)/(s+3)")), TransferFunction.Unity);
+        Tolerance.Close(-20 * Math.Log10(0.6), m.GainMarginDb, 1e-9);
+        Assert.True(double.IsPositiveInfinity(m.PhaseCrossover));
+        Assert.All(m.PhaseCrossings.Where(p => double.IsFinite(p.Frequency)), p => Assert.True(p.GainFactor > 1 / 0.6, $"factor {p.GainFactor} at {p.Frequency}"));
+    }
+
+    [Fact]
     public void Analyze_OpenLoopUnstablePlant_DownwardMarginAtDc()
     {
         // L = 4/(s − 1): stable closed loop (root −3); L(0) = −4 is real and negative, so ω = 0 is a phase
