@@ -43,16 +43,15 @@ internal sealed class DesignSettings
     /// </summary>
     public Core.Workflow.DesignRun Run(ParseResult parse, Core.Cases.CaseFile input)
     {
-        if (parse.GetValue(Corner) || !Core.Workflow.DesignWorkflow.Searches(input))
-        {
-            return Core.Workflow.DesignWorkflow.Run(input);
-        }
-
+        var atCorner = parse.GetValue(Corner) || !Core.Workflow.DesignWorkflow.Searches(input);
         var objective = parse.GetValue(Objective) is { } name ? Core.Search.SearchObjectiveNames.TryParse(name)!.Value : Core.Search.SearchObjective.HighFrequencyGain;
         var options = new Core.Search.SearchOptions { Objective = objective, Pinned = Pinned(parse) };
-        return parse.GetValue(Kinds) is { } kinds
-            ? Core.Workflow.DesignWorkflow.SearchKinds(input, ParseKinds(kinds)!, options)
-            : Core.Workflow.DesignWorkflow.Search(input, options);
+        if (parse.GetValue(Kinds) is { } kinds)
+        {
+            return Core.Workflow.DesignWorkflow.SearchKinds(input, ParseKinds(kinds)!, options, atCorner);
+        }
+
+        return atCorner ? Core.Workflow.DesignWorkflow.Run(input) : Core.Workflow.DesignWorkflow.Search(input, options);
     }
 
     /// <summary>The kinds of a comma-separated list ("lead,pid"), or null when a name is not a kind.</summary>

@@ -54,8 +54,9 @@ public static class DesignTextReport
         if (report.Search is { } search)
         {
             SearchSection.Append(sb, search);
-            KindComparisonSection.Append(sb, report.KindsCompared, kindName, search.Objective);
         }
+
+        KindComparisonSection.Append(sb, report.KindsCompared, kindName, report.Search?.Objective);
 
         sb.AppendLine(design.Placement is { } placement ? $"Synthesis ({kindName}, lead placement: {PlacementNames.NameOf(placement)})" : $"Synthesis ({kindName})");
         foreach (var note in design.Notes)

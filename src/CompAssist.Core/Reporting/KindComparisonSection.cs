@@ -9,8 +9,11 @@ namespace CompAssist.Core.Reporting;
 /// <summary>The comparison of several searched compensator kinds, in text and JSON.</summary>
 public static class KindComparisonSection
 {
-    /// <summary>Appends "Kinds compared" with each kind's best, the chosen one marked.</summary>
-    public static void Append(StringBuilder sb, ImmutableArray<KindResult> rows, string chosen, SearchObjective objective)
+    /// <summary>
+    /// Appends "Kinds compared" with each kind's best, the chosen one marked; <paramref name="objective"/> is
+    /// null when each kind was designed at one target (the corner or a given point) rather than searched.
+    /// </summary>
+    public static void Append(StringBuilder sb, ImmutableArray<KindResult> rows, string chosen, SearchObjective? objective)
     {
         ArgumentNullException.ThrowIfNull(sb);
         ArgumentNullException.ThrowIfNull(chosen);
@@ -19,14 +22,16 @@ public static class KindComparisonSection
             return;
         }
 
-        sb.AppendLine("Kinds compared (each searched in full; the best of each, by the same objective)");
+        sb.AppendLine(objective is null
+            ? "Kinds compared (each designed at the same target; a kind that meets every requirement is kept first)"
+            : "Kinds compared (each searched in full; the best of each, by the same objective)");
         foreach (var row in rows)
         {
             var mark = row.Kind == chosen ? " (chosen)" : string.Empty;
             var state = row.Refusal is { } why
                 ? $"refused: {why}"
-                : (row.Meets ? "meets" : $"misses (shortfall {TransferFunctionFormatter.Number(row.Violation, 4)})")
-                  + (double.IsFinite(row.Objective) ? $", {SearchSection.ObjectiveText(objective, row.Objective)}" : string.Empty);
+                : (row.Meets ? "meets" : double.IsFinite(row.Violation) ? $"misses (shortfall {TransferFunctionFormatter.Number(row.Violation, 4)})" : "fails a requirement")
+                  + (objective is { } o && double.IsFinite(row.Objective) ? $", {SearchSection.ObjectiveText(o, row.Objective)}" : string.Empty);
             var unused = row.UnusedChoices.Length > 0 ? $"; not used by this kind: {row.UnusedChoices}" : string.Empty;
             TextWrap.AppendTo(sb, $"{row.Kind}{mark}: {state}{unused}", "  ", "    ");
         }

@@ -131,10 +131,12 @@ public static class DesignWorkflow
     /// <summary>
     /// Searches each kind in <paramref name="kinds"/> and returns the best one's full report, with every kind's
     /// best beside it: a kind that meets beats one that does not, then the lower objective, then the smaller
-    /// shortfall, then the order given. Refused when no kind can be designed at all.
+    /// shortfall, then the order given. Refused when no kind can be designed at all. With
+    /// <paramref name="atCorner"/> (or an explicit target in the case) each kind is designed at the one target
+    /// instead of searched, and the kinds are compared on their verdicts.
     /// </summary>
     /// <exception cref="OperationCanceledException">The search was cancelled.</exception>
-    public static DesignRun SearchKinds(CaseFile input, IReadOnlyList<CompensatorKind> kinds, SearchOptions options, CancellationToken cancellation = default)
+    public static DesignRun SearchKinds(CaseFile input, IReadOnlyList<CompensatorKind> kinds, SearchOptions options, bool atCorner = false, CancellationToken cancellation = default)
     {
         ArgumentNullException.ThrowIfNull(input);
         ArgumentNullException.ThrowIfNull(kinds);
@@ -147,7 +149,10 @@ public static class DesignWorkflow
         var runs = new List<(CompensatorKind Kind, DesignRun Run)>();
         foreach (var kind in kinds.Distinct())
         {
-            var run = Search(input with { CompensatorType = CompensatorKindNames.NameOf(kind) }, options with { Pinned = options.Pinned & SearchPinNames.ChoicesOf(kind) }, null, cancellation);
+            var asKind = input with { CompensatorType = CompensatorKindNames.NameOf(kind) };
+            var run = atCorner
+                ? Run(asKind)
+                : Search(asKind, options with { Pinned = options.Pinned & SearchPinNames.ChoicesOf(kind) }, null, cancellation);
             runs.Add((kind, run));
             if (run.FieldError is not null)
             {

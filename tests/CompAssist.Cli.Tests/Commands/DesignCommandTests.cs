@@ -63,6 +63,17 @@ public class DesignCommandTests
     }
 
     [Fact]
+    public void Design_KindsAtTheCorner_ComparedAtTheOneTargetNotIgnored()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "25/(s(s+5))", "--overshoot", "10", "--settling", "1.2", "--kinds", "pi,lead", "--corner");
+        Assert.True(code == 0, error);
+        Assert.Contains("Kinds compared (each designed at the same target", output, StringComparison.Ordinal);
+        Assert.Contains("lead (chosen): meets", output, StringComparison.Ordinal);
+        Assert.Contains("pi: refused", output, StringComparison.Ordinal);
+        Assert.DoesNotContain("Search (", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Design_Text_ShowsCompensatorProofAndCaution()
     {
         var (code, output, error) = CliRunner.Run("design", "--plant", Ogata, "--zeta", "0.5", "--wn", "4");

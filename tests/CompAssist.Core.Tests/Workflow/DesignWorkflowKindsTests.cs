@@ -44,6 +44,21 @@ public class DesignWorkflowKindsTests
     }
 
     [Fact]
+    public void SearchKinds_AtTheCorner_EachKindDesignedAtTheCornerNotSearched()
+    {
+        // A lead meets 10 % / 1.2 s on 25/(s(s+5)) at the corner too (the corner target is the same for both
+        // kinds); a PI needs phase lead there and is refused, so the lead is kept and the PI's row says why.
+        var input = Case("25/(s(s+5))", 10, 1.2);
+        var run = DesignWorkflow.SearchKinds(input, [CompensatorKind.PI, CompensatorKind.Lead], new SearchOptions(), atCorner: true);
+        Assert.True(run.IsSuccess, run.Problem?.ToString());
+        var report = run.Report!;
+        Assert.Null(report.Search);
+        Assert.Equal(CompensatorKind.Lead, report.Design.Compensator.Kind);
+        Assert.Equal(DesignWorkflow.Run(input).Report!.Design.Target.Point, report.Design.Target.Point);
+        Assert.Equal(["pi", "lead"], report.KindsCompared.Select(k => k.Kind));
+    }
+
+    [Fact]
     public void SearchKinds_Empty_IsMisuse()
     {
         Assert.Throws<ArgumentException>(() => DesignWorkflow.SearchKinds(Case("1/s", 10, 1), [], new SearchOptions()));
