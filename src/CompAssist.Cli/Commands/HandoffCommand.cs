@@ -98,6 +98,10 @@ internal static class HandoffCommand
             stdout.WriteLine($"wrote {package.Value.Files.Count + 2} files into {folder}");
             stdout.WriteLine($"  sample time: {package.Value.SampleTimeNote}");
             stdout.WriteLine($"  sampled loop: {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {proof.LargestPoleMagnitude:G6}, overshoot {proof.Metrics.OvershootPercent:G4} %, 2 % settling {proof.Metrics.SettlingTime2Percent:G4} s");
+            stdout.WriteLine("  sample-time ladder (each value re-proved sampled; ▶ this package):");
+            var ladderText = new System.Text.StringBuilder();
+            Core.Reporting.LadderTable.AppendText(ladderText, package.Value.Ladder, package.Value.Sampled.SampleTime, "    ");
+            stdout.Write(ladderText.ToString());
             if (numberFormat.Kind == NumberFormatKind.Fixed)
             {
                 stdout.WriteLine($"  {numberFormat}: quantization analysed and the loop re-proved with the rounded coefficients{(numberFormat.WordBits <= FixedPointCascade.MaxWordBits ? "; bit-exact fixed-point C and integer vectors written" : $"; no C code above {FixedPointCascade.MaxWordBits}-bit words")}.");
@@ -116,7 +120,12 @@ internal static class HandoffCommand
             }
 
             stdout.WriteLine("  CAUTION: the controller is not a safety function; read the caution in the report before running hardware.");
-            return proof.Stable && verdict.Meets ? CliApplication.Success : CliApplication.Fails;
+            if (!package.Value.SampledMeets)
+            {
+                stdout.WriteLine($"    ✗ sampled at T = {package.Value.Sampled.SampleTime:G4} s: {package.Value.Sampled.Binds}{(package.Value.Ladder.Recommended is { } ok && ok != package.Value.Sampled.SampleTime ? $"; T = {ok:G4} s meets" : string.Empty)}");
+            }
+
+            return proof.Stable && verdict.Meets && package.Value.SampledMeets ? CliApplication.Success : CliApplication.Fails;
         });
         return command;
     }

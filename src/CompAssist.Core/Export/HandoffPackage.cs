@@ -21,26 +21,20 @@ namespace CompAssist.Core.Export;
 /// <param name="Proof">The sampled loop's proof, with the coefficients as stored.</param>
 /// <param name="Quantization">What storing the coefficients in the chosen format does.</param>
 /// <param name="SampleTimeNote">How the sample time was chosen.</param>
+/// <param name="Ladder">The sample times re-proved, and the recommendation they give.</param>
+/// <param name="Sampled">The sampled loop at the package's sample time against the requirements the continuous loop meets.</param>
 public sealed record HandoffPackage(
     ImmutableDictionary<string, string> Files,
     Discretizer.Result Discretization,
     ImmutableArray<Section> Sections,
     SampledLoopProof Proof,
     QuantizationReport Quantization,
-    string SampleTimeNote)
+    string SampleTimeNote,
+    SampleTimeLadder Ladder,
+    LadderRung Sampled)
 {
-    /// <summary>
-    /// Recommended sample time: the sampling frequency at least twenty times the gain crossover (common practice,
-    /// e.g. Franklin, Powell and Workman, Digital Control of Dynamic Systems, 3rd ed., chapter 11: 20–40× the
-    /// bandwidth), rounded down to 1, 2 or 5 × 10ⁿ seconds.
-    /// </summary>
-    public static double RecommendedSampleTime(double crossover)
-    {
-        var t = 2 * Math.PI / (20 * crossover);
-        var decade = Math.Pow(10, Math.Floor(Math.Log10(t)));
-        var mantissa = t / decade;
-        return decade * (mantissa >= 5 ? 5 : mantissa >= 2 ? 2 : 1);
-    }
+    /// <summary>True when the sampled loop at the package's sample time meets every requirement the continuous loop meets.</summary>
+    public bool SampledMeets => Sampled.Meets;
 
     /// <summary>Builds the package for a proved design.</summary>
     public static Outcome<HandoffPackage> Build(DesignReport report, HandoffOptions options, string caseName)
@@ -58,31 +52,38 @@ public sealed record HandoffPackage(
         string note;
         double t;
         var wc = margins.GainCrossover;
+        var ladder = SampleTimeLadder.Build(loop, c, report.Check, options);
         if (options.SampleTime is { } given)
         {
             t = given;
             note = $"given: T = {F(t)} s";
         }
-        else if (double.IsFinite(wc))
+        else if (ladder.Recommended is { } recommended)
         {
-            // Also keep the compensator's own fastest corner well below Nyquist (sampling at least 10× it).
-            var fastest = c.Poles.Concat(c.Zeros).Select(r => r.Magnitude).DefaultIfEmpty(0).Max();
-            var basis = Math.Max(wc, fastest / 2);
-            t = RecommendedSampleTime(basis);
-            note = basis > wc
-                ? $"recommended: the sampling frequency 2π/T at least 10× the compensator's fastest corner {F(fastest)} rad/s (which is beyond 20× the gain crossover {F(wc)} rad/s), rounded down: T = {F(t)} s"
-                : $"recommended: the sampling frequency 2π/T at least 20× the gain crossover {F(wc)} rad/s, rounded down: T = {F(t)} s";
+            t = recommended;
+            note = $"recommended: T = {F(t)} s, the longest value on the 1-2-5 ladder (from ωs ≥ 25·ωB, ωB = {F(ladder.Bandwidth)} rad/s the closed-loop bandwidth, and ωs ≥ 10× the compensator's fastest corner) at which the sampled loop, re-proved, meets every requirement the continuous loop meets, and so do the shorter values tried";
+            if (ladder.Limit is { } limit && limit > t)
+            {
+                note += $"; {F(limit)} s still meets (a limit, not advice: it leaves no margin for what the model omits)";
+            }
         }
         else
         {
-            return Outcome<HandoffPackage>.Refused("The loop has no gain crossover to size the sample time from", "Give the sample time.", Setting.SampleTime);
+            t = ladder.Rungs.Length > 0 ? ladder.Rungs[^1].SampleTime : ladder.Start;
+            note = $"no value on the ladder from {F(ladder.Start)} s down to {F(t)} s meets every requirement the continuous loop meets when sampled; the package uses T = {F(t)} s and FAILS there";
         }
 
-        if (double.IsFinite(wc))
+        var sampled = ladder.Rungs.FirstOrDefault(r => r.SampleTime == t) ?? SampleTimeLadder.Rung(loop, c, report.Check, options, t);
+        if (sampled is not null && !sampled.Meets)
+        {
+            var better = ladder.Recommended is { } ok && ok != t ? $"; T = {F(ok)} s meets" : string.Empty;
+            note += $". At T = {F(t)} s the sampled loop FAILS: {sampled.Binds}{better}";
+        }
+
+        if (double.IsFinite(wc) && sampled is not null)
         {
             var hold = wc * t / 2 * 180 / Math.PI;
-            var computation = options.ComputationDelay ? wc * t * 180 / Math.PI : 0;
-            note += $". At the crossover the hold costs about {F(hold)}° (ωc·T/2){(options.ComputationDelay ? $" and the one-sample computation delay {F(computation)}°" : string.Empty)}, leaving about {F(margins.PhaseMarginDeg - hold - computation)}° of the {F(margins.PhaseMarginDeg)}° phase margin.";
+            note += $". Phase margin {F(sampled.PhaseMarginDeg)}° sampled against {F(margins.PhaseMarginDeg)}° continuous (the hold alone costs about ωc·T/2 = {F(hold)}°{(options.ComputationDelay ? $", the one-sample computation delay about {F(wc * t * 180 / Math.PI)}°" : string.Empty)}).";
         }
 
         var discrete = Discretizer.Discretize(c, t, options.Method, options.PrewarpFrequency);
@@ -94,15 +95,7 @@ public sealed record HandoffPackage(
         var d = discrete.Value.Discrete;
         var sections = SectionSplitter.Split(d);
         var quantization = Quantizer.Quantize(d, sections, options.Format);
-        var proof = SampledLoop.Prove(loop, quantization.Quantized, options.ComputationDelay);
-        var continuous = report.Check.Step;
-        if (proof.Stable && (proof.Metrics.OvershootPercent > continuous.OvershootPercent + 5 || proof.Metrics.SettlingTime2Percent > 1.5 * continuous.SettlingTime2Percent))
-        {
-            proof = proof with
-            {
-                Warnings = proof.Warnings.Add($"Sampling degrades the step: overshoot {F(proof.Metrics.OvershootPercent)} % against {F(continuous.OvershootPercent)} % continuous, 2 % settling {F(proof.Metrics.SettlingTime2Percent)} s against {F(continuous.SettlingTime2Percent)} s. Sample faster, drop the computation delay, or design with the sampling delay included."),
-            };
-        }
+        var proof = sampled?.Proof ?? SampledLoop.Prove(loop, quantization.Quantized, options.ComputationDelay);
         var origin = $"{(caseName.Length > 0 ? caseName + ": " : string.Empty)}C(s) = {c} for G(s) = {loop.Plant}, H(s) = {loop.Feedback}";
         var files = ImmutableDictionary.CreateBuilder<string, string>();
         if (!CLiterals.IsIdentifier(options.Name))
@@ -168,10 +161,10 @@ public sealed record HandoffPackage(
             note += " " + extra;
         }
 
-        files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note));
+        files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note, ladder));
         files.Add($"{options.Name}-vectors.csv", vectors);
-        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, caseName, [.. files.Keys, $"{options.Name}-report.md"]));
-        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note));
+        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, ladder, caseName, [.. files.Keys, $"{options.Name}-report.md"]));
+        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note, ladder, sampled ?? SampleTimeLadder.Rung(loop, c, report.Check, options, t)!));
     }
 
     private static string Vectors(ImmutableArray<Section> sections, NumberFormat format, double sampleTime)
@@ -251,7 +244,7 @@ public sealed record HandoffPackage(
         return sb.ToString();
     }
 
-    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note)
+    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder)
     {
         using var stream = new MemoryStream();
         using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
@@ -262,6 +255,7 @@ public sealed record HandoffPackage(
             w.WriteString("source", origin);
             w.WriteNumber("sampleTime", d.SampleTime);
             w.WriteString("sampleTimeNote", note);
+            LadderTable.WriteJson(w, ladder);
             w.WriteString("method", DiscreteReport.MethodName(discrete.Method));
             w.WriteString("units", "input: control error in the measurement's units; output: actuator command in the compensator's output units");
             w.WriteString("convention", "C(z) = (b0 + b1 z^-1 + ...)/(1 + a1 z^-1 + ...); sections in transposed direct form II: y = b0 x + s1; s1 = b1 x - a1 y + s2; s2 = b2 x - a2 y");
@@ -314,7 +308,7 @@ public sealed record HandoffPackage(
         return Encoding.UTF8.GetString(stream.ToArray());
     }
 
-    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, string caseName, IEnumerable<string> files)
+    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder, string caseName, IEnumerable<string> files)
     {
         var d = discrete.Discrete;
         var m = report.Check.Step;
@@ -338,6 +332,12 @@ public sealed record HandoffPackage(
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Form: cascaded sections in transposed direct form II; coefficients stored as {options.Format}{(options.Format.Kind == NumberFormatKind.Fixed ? $" (fractional bits per section: {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; round to nearest, saturate)" : string.Empty)}; actuator saturation and anti-windup are not included in the section cascade (see the PID export for PID designs)");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Quantization: largest pole shift {F(quantization.LargestPoleShift)}, largest zero shift {F(quantization.LargestZeroShift)}, DC gain change {F(quantization.DcGainChangePercent)} %; the sampled loop below uses the stored coefficients");
         sb.AppendLine("- Units: input = control error (measurement units), output = actuator command");
+        sb.AppendLine();
+        sb.AppendLine("## Sample time: the ladder re-proved");
+        sb.AppendLine();
+        sb.AppendLine("Each value re-proved sampled against the requirements the continuous loop meets (step figures and phase margin; with none given, the sampled step within 5 points of overshoot and 1.5× the settling time of the continuous one):");
+        sb.AppendLine();
+        LadderTable.AppendMarkdown(sb, ladder, d.SampleTime);
         sb.AppendLine();
         sb.AppendLine("## Sampled loop (plant by zero-order hold)");
         sb.AppendLine();

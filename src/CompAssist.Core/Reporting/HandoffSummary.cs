@@ -22,6 +22,8 @@ public static class HandoffSummary
         sb.AppendLine($"anti-windup    {AntiWindupName(options.AntiWindup)} (used by the PID export)");
         sb.AppendLine($"sections       {package.Sections.Length} (cascaded, in the order they are applied)");
         TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples switch { 0 => string.Empty, 1 => ", 1 sample of delay", var d => $", {d} samples of delay" })})", string.Empty, "               ");
+        sb.AppendLine("ladder         each value re-proved sampled (▶ this package):");
+        LadderTable.AppendText(sb, package.Ladder, package.Sampled.SampleTime, "  ");
         var warnings = package.Quantization.Warnings.Concat(proof.Warnings).ToList();
         foreach (var w in warnings)
         {

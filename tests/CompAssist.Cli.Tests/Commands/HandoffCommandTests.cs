@@ -116,6 +116,34 @@ public class HandoffCommandTests
     }
 
     [Fact]
+    public void Handoff_GivenSampleTimeFailsSampled_ExitFourWithThePackageWrittenAndTheValueThatMeets()
+    {
+        // The belt-axis demo sampled at 0.2 s overshoots well beyond its 10 % (about 17 % at the instants):
+        // the package is still written (the firmware engineer may want to see it), the exit code says it fails.
+        var folder = Directory.CreateTempSubdirectory("compassist-handoff-").FullName;
+        try
+        {
+            var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "belt-axis.toml");
+            var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--sample-time", "0.2");
+            Assert.True(code == 4, error + output);
+            Assert.Contains("sampled at T = 0.2 s: overshoot %", output, StringComparison.Ordinal);
+            Assert.Contains("meets", output, StringComparison.Ordinal);
+            Assert.True(File.Exists(Path.Combine(folder, "compassist_ctrl-report.md")));
+            var report = File.ReadAllText(Path.Combine(folder, "compassist_ctrl-report.md"));
+            Assert.Contains("## Sample time: the ladder re-proved", report, StringComparison.Ordinal);
+            Assert.Contains("**0.2** (this package)", report, StringComparison.Ordinal);
+
+            var (recommendedCode, recommended, _) = CliRunner.Run("handoff", file, "--out", folder);
+            Assert.Equal(0, recommendedCode);
+            Assert.Contains("recommended: T = ", recommended, StringComparison.Ordinal);
+        }
+        finally
+        {
+            Directory.Delete(folder, true);
+        }
+    }
+
+    [Fact]
     public void Handoff_ImproperPid_RefusedWithFix()
     {
         var folder = Path.Combine(Path.GetTempPath(), $"compassist-never-{Guid.NewGuid():N}");
