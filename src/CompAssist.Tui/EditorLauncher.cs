@@ -109,6 +109,13 @@ public static class EditorLauncher
             return null;
         }
 
+        // Temporaries that a killed save left beside the case are incomplete by construction: remove them, and say so.
+        var removed = AtomicFile.RemoveLeftovers(casePath) + AtomicFile.RemoveLeftovers(AutosaveFiles.PathFor(casePath, Environment.CurrentDirectory));
+        if (removed > 0)
+        {
+            stderr.WriteLine($"note: removed {removed} temporary file(s) left beside {casePath} by an interrupted save (the case itself is complete).");
+        }
+
         return new DesignSession(c, casePath);
     }
 }

@@ -286,7 +286,9 @@ public sealed class DesignSession
         var text = caseText;
         try
         {
-            AtomicFile.Write(target, text, beforeRename);
+            // Only the case file that was opened is written through a link (to its target, keeping the link).
+            var opened = Path is not null && System.IO.Path.GetFullPath(target) == Path;
+            AtomicFile.Write(target, text, beforeRename, followLink: opened);
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
