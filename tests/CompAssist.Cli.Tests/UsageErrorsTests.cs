@@ -70,7 +70,7 @@ public partial class UsageErrorsTests
     {
         // Fuzz by the grammar of the command line itself: every flag each command's help lists, with values a
         // hurried user or a script types. Whatever the flag, the answer follows the exit-code scheme.
-        var values = new[] { "2,5", "", "nan", "-", "1e400", "--json", "0x10", "١٢" };
+        var values = new[] { "2,5", "", "nan", "-", "1e400", "--json", "0x10", "١٢", "1e308", "-1e308", "1e-320", "Infinity", "0", "-0" };
         var tried = 0;
         var folder = Directory.CreateTempSubdirectory("ca-usage-").FullName;
         var valid = 0;

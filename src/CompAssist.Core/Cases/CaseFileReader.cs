@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Globalization;
 using System.Numerics;
 using System.Text.RegularExpressions;
+using CompAssist.Core.Common;
 using CompAssist.Core.Model;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
@@ -342,9 +343,9 @@ public static partial class CaseFileReader
 
             if (ToDouble(value) is { } d)
             {
-                if (!double.IsFinite(d))
+                if (!NumberRange.Usable(d))
                 {
-                    Fail($"{Where(section, key)} is not finite", "Give a finite number.");
+                    Fail($"{Where(section, key)} is not a usable number (NaN, an infinity or below 1e-300 in magnitude)", "Give a finite number.");
                     return null;
                 }
 

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using CompAssist.Core.Cases;
+using CompAssist.Core.Common;
 using CompAssist.Core.Model;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
@@ -195,7 +196,7 @@ public static class CaseFieldText
         var valueText = text[(eq + 1)..];
         var valueStart = eq + 1 + (valueText.Length - valueText.TrimStart().Length);
         var stepError = name == "step_error";
-        if (!double.TryParse(valueText.Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out var value) || !double.IsFinite(value) || value <= 0 || (stepError && value >= 1))
+        if (!double.TryParse(valueText.Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out var value) || !NumberRange.Usable(value) || value <= 0 || (stepError && value >= 1))
         {
             var what = stepError ? "a step error between 0 and 1" : "a value above 0";
             return FieldEdit.Rejected(new ParseError($"'{valueText.Trim()}' is not {what}", hint, text, Math.Min(valueStart, text.Length), Math.Max(1, valueText.Trim().Length)));
@@ -252,7 +253,7 @@ public static class CaseFieldText
             return FieldEdit.Accepted(apply(null));
         }
 
-        if (!double.TryParse(trimmed, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !double.IsFinite(x))
+        if (!double.TryParse(trimmed, NumberStyles.Float, CultureInfo.InvariantCulture, out var x) || !NumberRange.Usable(x))
         {
             var bad = FirstNonNumeric(text);
             return FieldEdit.Rejected(bad >= 0

@@ -49,6 +49,11 @@ public sealed record HandoffPackage(
             return Outcome<HandoffPackage>.Refused("The continuous design is unstable", "Fix the design before handing it off.");
         }
 
+        if (options.SampleTime is { } asked && !(asked > 0 && asked <= NumberRange.Largest))
+        {
+            return Outcome<HandoffPackage>.Refused($"The sample time {F(asked)} s is outside 0 … 1e12 s", "Give a sample time above 0 s (a few hundredths of the loop's fastest time constant, say).", Setting.SampleTime);
+        }
+
         string note;
         double t;
         var wc = margins.GainCrossover;

@@ -20,18 +20,19 @@ public sealed record ClosedLoopTransfers(TransferFunction Output, TransferFuncti
         ArgumentNullException.ThrowIfNull(compensator);
         var g = loop.Rational(loop.Plant);
         var h = loop.Rational(loop.Feedback);
+        var c = loop.Rational(compensator); // a delay in the compensator too, by the same approximant as the roots
         var characteristic = loop.Characteristic(compensator);
         var lead = characteristic.ExpandForSeeds().Leading;
         var output = TransferFunction.FromFactors(
-            compensator.Gain * g.Gain / lead,
-            compensator.Zeros.AddRange(g.Zeros).AddRange(h.Poles),
+            c.Gain * g.Gain / lead,
+            c.Zeros.AddRange(g.Zeros).AddRange(h.Poles),
             closedLoopPoles);
         TransferFunction? effort = null;
         if (compensator.IsProper)
         {
             effort = TransferFunction.FromFactors(
-                compensator.Gain / lead,
-                compensator.Zeros.AddRange(g.Poles).AddRange(h.Poles),
+                c.Gain / lead,
+                c.Zeros.AddRange(g.Poles).AddRange(h.Poles),
                 closedLoopPoles);
         }
 

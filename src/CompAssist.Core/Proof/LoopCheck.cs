@@ -81,6 +81,12 @@ public static class LoopCheck
             warnings.Add($"The closed loop is UNSTABLE: {unstableRoots} closed-loop root{(unstableRoots == 1 ? " is" : "s are")} in the right half-plane or on the imaginary axis. {growth}; no margins are claimed and no requirement passes.");
         }
 
+        if (trajectory.Capped && delayed is null)
+        {
+            var slowest = closedLoopPoles.Where(p => p.Imaginary > 0 && p.Real < 0).Select(p => -p.Real).DefaultIfEmpty(double.NaN).Min();
+            warnings.Add($"The loop is so lightly damped that the simulation stops at {F(horizon)} s ({StepTrajectory.MaxOscillationSamples / 2 / Math.PI:F0} radians of its oscillation, about {StepTrajectory.MaxOscillationSamples / 4 / Math.PI:F0} periods) instead of running until it settles: its envelope needs about 4/σ = {F(4 / slowest)} s to enter the ±2 % band. Overshoot, peak and rise are measured (over so many periods rounding can grow the oscillation by about 0.2 %, which then exceeds its true decay for ζ below about 1e-7); the settling time is beyond the simulated span.");
+        }
+
         if (stable && double.IsPositiveInfinity(metrics.SettlingTime2Percent))
         {
             warnings.Add($"The step has not settled within ±2 % by the end of the simulated {F(horizon)} s.");
@@ -111,7 +117,10 @@ public static class LoopCheck
 
         if (solution == StepSolution.PadeApproximant && stable)
         {
-            warnings.Add($"The delay ({F(loop.Delay + compensator.Delay)} s) is so short beside the simulated {F(horizon)} s that the step is that of its Padé approximant of order {loop.PadeOrder}; at this ratio the two agree closely.");
+            var theta = loop.Delay + compensator.Delay;
+            warnings.Add(theta * 1e4 < horizon
+                ? $"The delay ({F(theta)} s) is so short beside the simulated {F(horizon)} s that the step is that of its Padé approximant of order {loop.PadeOrder}; at this ratio the two agree closely."
+                : $"The delay ({F(theta)} s) is too long beside the loop's fastest dynamics to simulate exactly within the step budget: the step and its figures are those of the Padé approximant of order {loop.PadeOrder} and may be far off. Do not rely on them; check the loop with the delay in a time-domain simulation of its own.");
         }
 
         if (solution == StepSolution.PadeApproximant && stable && metrics.UndershootPercent > 0
@@ -186,6 +195,11 @@ public static class LoopCheck
     /// </summary>
     public static double Horizon(ImmutableArray<Complex> poles)
     {
+        if (poles.IsDefaultOrEmpty)
+        {
+            return 1.0; // a static loop (gains only): nothing moves after the step
+        }
+
         var decays = poles.Where(p => p.Real < 0).Select(p => -p.Real).ToList();
         if (poles.Any(p => p.Real >= 0))
         {

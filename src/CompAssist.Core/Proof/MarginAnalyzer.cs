@@ -225,6 +225,22 @@ public static class MarginAnalyzer
             points.Add(Math.Exp(logLo + (i * step)));
         }
 
+        if (open.Delay > 0)
+        {
+            // The delay turns the phase by ω·θ: a log grid coarsens until one interval spans a whole turn, and a
+            // phase difference of 2π looks like none, so −180° crossings were skipped. Add points every 0.2/θ
+            // rad/s (a fifth of a radian of delay phase) up to 1000/θ, within a budget of 20,000 points.
+            var top = Math.Min(hi, 1000.0 / open.Delay);
+            var linear = Math.Max(0.2 / open.Delay, top / 20_000);
+            for (var w = linear; w < top; w += linear)
+            {
+                if (w > lo)
+                {
+                    points.Add(w);
+                }
+            }
+        }
+
         foreach (var r in open.Zeros.Concat(open.Poles).Where(r => r.Imaginary > 0))
         {
             var width = Math.Max(Math.Abs(r.Real), 1e-9 * r.Imaginary);

@@ -40,7 +40,7 @@ public static class StepAnalysis
             return tr;
         }
 
-        for (var i = 0; i < MaxHorizonDoublings && double.IsPositiveInfinity(Settling(tr, finalValue, 0.02).Time); i++)
+        for (var i = 0; i < MaxHorizonDoublings && !tr.Capped && double.IsPositiveInfinity(Settling(tr, finalValue, 0.02).Time); i++)
         {
             horizon *= 2;
             tr = StepTrajectory.Simulate(system, poles, horizon);

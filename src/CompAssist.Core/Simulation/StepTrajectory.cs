@@ -13,6 +13,13 @@ namespace CompAssist.Core.Simulation;
 internal sealed class StepTrajectory
 {
     private const int SamplesPerDoubling = 32;
+
+    /// <summary>
+    /// The most samples a lightly damped oscillation may take at half a radian each (about 32,000 periods):
+    /// beyond it the horizon is cut short (<see cref="Capped"/>) rather than the grid coarsened, which would
+    /// alias the oscillation — a ζ of 1e-10 settles only after 4e10 s.
+    /// </summary>
+    public const int MaxOscillationSamples = 400_000;
     private readonly StateSpace _system;
     private readonly double[,] _a;
     private readonly double[] _b;
@@ -50,8 +57,11 @@ internal sealed class StepTrajectory
     /// <summary>Number of samples.</summary>
     public int Count => _times.Count;
 
-    /// <summary>The last sample time (at or just beyond the asked horizon).</summary>
+    /// <summary>The last sample time (at or just beyond the asked horizon, or where <see cref="Capped"/> cut it).</summary>
     public double Horizon => _times[^1];
+
+    /// <summary>True when the asked horizon was cut short to keep a lightly damped oscillation resolved.</summary>
+    public bool Capped { get; private set; }
 
     /// <summary>Sample time k.</summary>
     public double Time(int k) => _times[k];
@@ -76,6 +86,18 @@ internal sealed class StepTrajectory
         }
 
         var trajectory = new StepTrajectory(system);
+        var oscillations = poles.Where(p => p.Imaginary > 0).Select(p => (Decay: -p.Real, Frequency: p.Imaginary)).ToArray();
+        foreach (var (decay, frequency) in oscillations)
+        {
+            // Alive (decay·t < 18) over the whole horizon and needing more than the sample budget: cut the horizon.
+            var limit = MaxOscillationSamples * 0.5 / frequency;
+            if (horizon > limit && decay * limit < 18.0)
+            {
+                horizon = limit;
+                trajectory.Capped = true;
+            }
+        }
+
         var fastest = poles.Count > 0 ? poles.Max(p => p.Magnitude) : 0.0;
         var coarsest = horizon / 256.0;
         var h0 = fastest > 0 ? Math.Min(0.05 / fastest, coarsest) : coarsest;
@@ -83,7 +105,6 @@ internal sealed class StepTrajectory
         var levels = new List<(double[,] Phi, double[] Gamma, double H)>();
         var (phi0, gamma0) = StepSimulator.Discretize(system, h0);
         levels.Add((phi0, gamma0, h0));
-        var oscillations = poles.Where(p => p.Imaginary > 0).Select(p => (Decay: -p.Real, Frequency: p.Imaginary)).ToArray();
 
         var n = system.Order;
         var x = new double[n];

@@ -306,6 +306,9 @@ public static class DesignWorkflow
         LeadPlacement.FixedZero when lead.Zero is null => new Problem("The fixed-zero placement needs a zero location", "Give the zero of the fixed-zero placement (a negative number).", Setting.LeadZero),
         LeadPlacement.FixedPole when lead.Pole is null => new Problem("The fixed-pole placement needs a pole location", "Give the pole of the fixed-pole placement (a negative number).", Setting.LeadPole),
         LeadPlacement.Ratio when lead.Ratio is null => new Problem("The ratio placement needs a pole/zero ratio", "Give the pole/zero ratio of the ratio placement (greater than 1).", Setting.LeadRatio),
+        _ when lead.Ratio is { } r && !(r > 1 && r <= NumberRange.Largest) => new Problem($"The pole/zero ratio {TransferFunctionFormatter.Number(r, 4)} is outside 1 … 1e12", "Give the pole/zero ratio of the ratio placement as a number above 1 (a lead's is rarely above 100).", Setting.LeadRatio),
+        _ when lead.Zero is { } z && !(NumberRange.Contains(z) && z != 0) => new Problem($"The zero {TransferFunctionFormatter.Number(z, 4)} is outside the range this tool accepts (1e-12 … 1e12 in magnitude)", "Give the zero of the fixed-zero placement (a negative number).", Setting.LeadZero),
+        _ when lead.Pole is { } p && !(NumberRange.Contains(p) && p != 0) => new Problem($"The pole {TransferFunctionFormatter.Number(p, 4)} is outside the range this tool accepts (1e-12 … 1e12 in magnitude)", "Give the pole of the fixed-pole placement (a negative number).", Setting.LeadPole),
         _ => null,
     };
 }

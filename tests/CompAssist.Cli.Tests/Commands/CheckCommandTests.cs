@@ -76,6 +76,36 @@ public class CheckCommandTests
     }
 
     [Fact]
+    public void Check_StaticLoop_ProvedNotAnInternalError()
+    {
+        // Gains only: T = 0.5/(1 + 0.5) = 1/3 at once, no closed-loop pole (common practice).
+        var (code, output, error) = CliRunner.Run("check", "--plant", "1", "--compensator", "0.5", "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Equal(1.0 / 3.0, doc.RootElement.GetProperty("check").GetProperty("step").GetProperty("finalValue").GetDouble(), 12);
+        var (plotCode, _, plotError) = CliRunner.Run("plot", "--plant", "1", "--compensator", "1", "--out", Path.Combine(Path.GetTempPath(), $"ca-static-{Guid.NewGuid():N}.svg"));
+        Assert.True(plotCode == 0, plotError);
+    }
+
+    [Fact]
+    public void Check_NearlyUndampedLoop_FirstPeakExactAndTheSpanCutShortWithAWarning()
+    {
+        // 1/(s² + 2e-6 s + 1) under unit feedback: ζ = 1e-6/√2, ωn = √2; overshoot e^(−πζ/√(1−ζ²)) and peak
+        // time π/ωd (common practice). Its envelope settles after 4/σ = 4e6 s: the simulation stops earlier,
+        // says so, and does not coarsen its grid into aliasing the oscillation.
+        var (code, output, error) = CliRunner.Run("check", "--plant", "1/(s^2+2e-6s+1)", "--compensator", "1", "--json");
+        Assert.True(code == 0, error);
+        using var doc = JsonDocument.Parse(output);
+        var check = doc.RootElement.GetProperty("check");
+        var step = check.GetProperty("step");
+        var zeta = 1e-6 / Math.Sqrt(2);
+        Assert.Equal(100 * Math.Exp(-Math.PI * zeta / Math.Sqrt(1 - (zeta * zeta))), step.GetProperty("overshootPercent").GetDouble(), 6);
+        Assert.Equal(Math.PI / (Math.Sqrt(2) * Math.Sqrt(1 - (zeta * zeta))), step.GetProperty("peakTime").GetDouble(), 6);
+        Assert.Equal("inf", step.GetProperty("settlingTime2").GetString());
+        Assert.Contains(check.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("so lightly damped", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void Check_Text_ShowsStepMarginsAndCaution()
     {
         var (code, output, _) = CliRunner.Run("check", "--plant", "4/(s(s+2))", "--compensator", "4.7(s+2.93)/(s+5.46)", "--overshoot", "20", "--settling", "2");

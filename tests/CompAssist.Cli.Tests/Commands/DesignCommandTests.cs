@@ -23,7 +23,7 @@ public class DesignCommandTests
     [Theory]
     [InlineData("--overshoot", "0", "The largest overshoot is 0")]
     [InlineData("--overshoot", "150", "The largest overshoot is 150")]
-    [InlineData("--overshoot", "nan", "The largest overshoot is nan")]
+    [InlineData("--overshoot", "nan", "--overshoot 'nan' is not a usable number")]
     [InlineData("--settling", "-1", "The largest settling time is -1")]
     [InlineData("--peak-time", "0", "The largest peak time is 0")]
     [InlineData("--zeta", "1.5", "The damping ratio ζ of the target is 1.5")]

@@ -71,6 +71,9 @@ public class CaseFileReaderTests
         { "format = 1\n[requirements]\ntarget = [1]", "[requirements] target must be [re, im]" },
         { "format = 1\n[compensator]\nplacement = \"middle\"", "[compensator] placement = \"middle\" is not a placement" },
         { "format = 1\nloop = 3", "'loop' must be a table" },
+        { "format = 1\n[requirements]\novershoot_percent = 5e-324", "[requirements] overshoot_percent is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
+        { "format = 1\n[requirements]\nkv = inf", "[requirements] kv is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
+        { "format = 1\n[requirements]\nkv = nan", "[requirements] kv is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
     };
 
     [Theory]

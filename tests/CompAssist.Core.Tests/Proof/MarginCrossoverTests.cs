@@ -133,6 +133,42 @@ public class MarginCrossoverTests
     }
 
     [Fact]
+    public void Analyze_DelayLoop_EveryPhaseCrossingOverThreeDecades()
+    {
+        // L = 2e^(−0.5s)/(s+1): ∠L = −atan ω − 0.5ω reaches −(2k+1)π once for each k (the phase falls
+        // monotonically), so the crossings are the roots of atan ω + 0.5ω = (2k+1)π, each found here by
+        // bisection. A log grid alone spaced its points a whole turn of delay phase apart and skipped some.
+        var m = MarginAnalyzer.Analyze(Loop.Create(FromText("2exp(-0.5s)/(s+1)")), TransferFunction.Unity);
+        // Listed up to 1000 rad/s at least (three decades beyond the corner, where |L| = 0.002).
+        var listed = m.PhaseCrossings.Select(p => p.Frequency).Where(w => w < 900).Order().ToList();
+        var expected = new List<double>();
+        for (var k = 0; ; k++)
+        {
+            var target = ((2 * k) + 1) * Math.PI;
+            double lo = 0, hi = 2 * target / 0.5 + 10;
+            for (var i = 0; i < 200; i++)
+            {
+                var mid = 0.5 * (lo + hi);
+                (lo, hi) = Math.Atan(mid) + (0.5 * mid) < target ? (mid, hi) : (lo, mid);
+            }
+
+            if (lo > 900)
+            {
+                break;
+            }
+
+            expected.Add(lo);
+        }
+
+        Assert.True(expected.Count > 70, $"{expected.Count} crossings expected");
+        Assert.Equal(expected.Count, listed.Count);
+        for (var i = 0; i < expected.Count; i++)
+        {
+            Tolerance.Close(expected[i], listed[i], 1e-9, what: $"crossing {i}");
+        }
+    }
+
+    [Fact]
     public void Analyze_OpenLoopUnstablePlant_DownwardMarginAtDc()
     {
         // L = 4/(s − 1): stable closed loop (root −3); L(0) = −4 is real and negative, so ω = 0 is a phase
