@@ -429,7 +429,23 @@ public static class MarginAnalyzer
 
         var x = 0.5 * (a + b);
         var refined = Sensitivity(x);
-        return refined > bestValue ? (refined, x) : (bestValue, grid[best].W);
+        var (peak, at) = refined > bestValue ? (refined, x) : (bestValue, grid[best].W);
+
+        // |S| tends to 1 for a strictly proper loop and to 1/|1 + L(∞)| for a biproper one (with a delay its
+        // supremum 1/(1 − |L(∞)|) is approached at ever higher frequencies): when that limit is the largest, it
+        // is the peak, at ω = ∞.
+        if (open.RelativeDegree >= 0)
+        {
+            var atInfinity = open.RelativeDegree > 0 || open.Gain == 0 ? 1.0
+                : open.Delay > 0 ? (Math.Abs(open.Gain) < 1 ? 1.0 / (1.0 - Math.Abs(open.Gain)) : double.PositiveInfinity)
+                : 1.0 / Math.Abs(1.0 + open.Gain);
+            if (atInfinity > peak)
+            {
+                return (atInfinity, double.PositiveInfinity);
+            }
+        }
+
+        return (peak, at);
     }
 
     // The bracket is halved geometrically (ω spans decades): bisection in ln ω, to a relative width of 1e-14.

@@ -105,7 +105,9 @@ public static class CheckTextSection
             }
         }
 
-        sb.AppendLine($"  sensitivity peak Ms = {N(g.SensitivityPeak, 4)} at {N(g.SensitivityPeakFrequency, 4)} rad/s");
+        sb.AppendLine(double.IsPositiveInfinity(g.SensitivityPeakFrequency)
+            ? $"  sensitivity peak Ms = {N(g.SensitivityPeak, 4)}, approached as ω → ∞ (|S| never exceeds its high-frequency limit)"
+            : $"  sensitivity peak Ms = {N(g.SensitivityPeak, 4)} at {N(g.SensitivityPeakFrequency, 4)} rad/s");
     }
 
     private static string Frequency(double w) => w == 0 ? "ω = 0 (DC)" : double.IsPositiveInfinity(w) ? "ω → inf" : $"{N(w, 4)} rad/s";

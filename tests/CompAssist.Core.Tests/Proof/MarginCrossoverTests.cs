@@ -168,6 +168,17 @@ public class MarginCrossoverTests
         }
     }
 
+    [Theory]
+    [InlineData("3/(s-1)", 1.0)]
+    [InlineData("-0.5(s-1)/(s+2)", 2.0)]
+    public void Analyze_SensitivityApproachingItsSupremumAtInfinity_ThatSupremum(string open, double supremum)
+    {
+        // 3/(s − 1): |S| = |s − 1|/|s + 2| rises to 1 as ω → ∞. −0.5(s − 1)/(s + 2): S = (s + 2)/(0.5s + 3),
+        // |S| rises to 1/0.5 = 2. Neither reaches its supremum at a finite frequency (closed forms).
+        var m = MarginAnalyzer.Analyze(Loop.Create(FromText(open)), TransferFunction.Unity);
+        Tolerance.Close(supremum, m.SensitivityPeak, 1e-12);
+    }
+
     [Fact]
     public void Analyze_OpenLoopUnstablePlant_DownwardMarginAtDc()
     {
