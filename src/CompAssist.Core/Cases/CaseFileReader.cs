@@ -105,6 +105,22 @@ public static partial class CaseFileReader
             return (null, new CaseFileError(source, "TOML syntax error: " + e.Message, "Fix the TOML syntax at that position.", line, column));
         }
 
+        // TOML forbids a key or a table given twice; the model above quietly keeps the last one, so the
+        // validating syntax parse decides, with the line of the repeat.
+        var syntax = Tomlyn.Parsing.SyntaxParser.Parse(text, source, true);
+        if (syntax.HasErrors && syntax.Diagnostics.FirstOrDefault() is { } diagnostic)
+        {
+            var said = diagnostic.ToString();
+            var m = PositionPattern().Match(said);
+            var detail = said.Contains(" : error : ", StringComparison.Ordinal) ? said[(said.IndexOf(" : error : ", StringComparison.Ordinal) + 11)..] : said;
+            return (null, new CaseFileError(
+                source,
+                detail.Replace('␤', ' '),
+                "TOML allows each key and each table once: remove or merge the repeated one.",
+                m.Success ? int.Parse(m.Groups[1].Value, CultureInfo.InvariantCulture) : null,
+                m.Success ? int.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture) : null));
+        }
+
         var reader = new TableReader(source);
         var result = reader.Build(root);
         return reader.Error is null ? (result, null) : (null, reader.Error);
@@ -258,8 +274,8 @@ public static partial class CaseFileReader
 
             return new CaseFile
             {
-                Name = String(root, string.Empty, "name") ?? string.Empty,
-                Description = String(root, string.Empty, "description") ?? string.Empty,
+                Name = PrintableText.Of(String(root, string.Empty, "name") ?? string.Empty),
+                Description = PrintableText.Of(String(root, string.Empty, "description") ?? string.Empty),
                 Plant = String(loop, "loop", "plant"),
                 Feedback = String(loop, "loop", "feedback") ?? "1",
                 Sign = sign == "positive" ? FeedbackSign.Positive : FeedbackSign.Negative,

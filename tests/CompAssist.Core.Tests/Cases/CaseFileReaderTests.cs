@@ -87,6 +87,29 @@ public class CaseFileReaderTests
         Assert.False(string.IsNullOrWhiteSpace(error.Hint));
     }
 
+    [Theory]
+    [InlineData("format = 1\n[loop]\nplant = \"4/(s(s+2))\"\nplant = \"1/s\"\n", 4)]
+    [InlineData("format = 1\n[loop]\nplant = \"4/(s(s+2))\"\n[loop]\nfeedback = \"1\"\n", 4)]
+    public void Read_KeyOrTableGivenTwice_ErrorAtTheRepeat(string text, int line)
+    {
+        // TOML 1.0 (toml.io, "Keys" and "Table"): defining a key or a table more than once is invalid.
+        var (c, error) = CaseFileReader.Read(text, "twice.toml");
+        Assert.Null(c);
+        Assert.NotNull(error);
+        Assert.Equal(line, error.Line);
+        Assert.Contains("already defined", error.Message, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Read_ControlCharactersInTheName_ShownAsEscapesNeverPassedToATerminal()
+    {
+        var (c, error) = CaseFileReader.Read("format = 1\nname = \"axis \\u001b[31mred\"\ndescription = \"bell \\u0007\"\n", "hostile.toml");
+        Assert.Null(error);
+        Assert.Equal("axis \\u001B[31mred", c!.Name);
+        Assert.Equal("bell \\u0007", c.Description);
+        Assert.DoesNotContain(c.Name + c.Description, char.IsControl);
+    }
+
     [Fact]
     public void Read_SyntaxError_HasLineAndColumn()
     {

@@ -111,6 +111,30 @@ public class CCodeGeneratorTests
     }
 
     [Fact]
+    public void Generate_HostileSourceText_CannotCloseTheCommentOrReachTheCode()
+    {
+        // A case name ending a C comment ("*/") followed by code, with an escape character: the header and the
+        // source stay one comment there and compile to nothing extra (C99 6.4.9: "*/" ends a block comment).
+        var c = ExpressionParser.Parse("2(s+1)/(s+10)", requireProper: false).Value!;
+        var d = Discretizer.Discretize(c, 0.01, DiscretizationMethod.Tustin).Value!.Discrete;
+        var (header, source) = CCodeGenerator.Generate("h_ctrl", SectionSplitter.Split(d), 0.01, "evil */ int injected = 1; /* \u001b[31m\u001b");
+        Assert.DoesNotContain("evil */", header + source, StringComparison.Ordinal);
+        Assert.DoesNotContain(header + source, ch => ch == '\u001b');
+        var directory = Directory.CreateTempSubdirectory("compassist-h-").FullName;
+        try
+        {
+            File.WriteAllText(Path.Combine(directory, "h_ctrl.h"), header);
+            File.WriteAllText(Path.Combine(directory, "h_ctrl.c"), source);
+            File.WriteAllText(Path.Combine(directory, "main.c"), "#include \"h_ctrl.h\"\nint main(void)\n{\n    h_ctrl_state s;\n    h_ctrl_init(&s);\n    return (int)h_ctrl_step(&s, 0.0);\n}\n");
+            CCompiler.Compile(directory, "-O0", "main.c h_ctrl.c");
+        }
+        finally
+        {
+            Directory.Delete(directory, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Generate_BadName_Throws()
     {
         Assert.Throws<ArgumentException>(() => CCodeGenerator.Generate("9lives", [], 0.01, "x"));
