@@ -21,11 +21,17 @@ public static class Discretizer
             return Outcome<Result>.Refused($"Sample time {t} is not positive", "Give the sample time in seconds, e.g. 0.001.", Setting.SampleTime);
         }
 
-        if (!c.IsProper)
+        if (!c.IsProper && method != DiscretizationMethod.Backward)
         {
+            // Backward Euler maps s to (1 − z⁻¹)/T: an ideal derivative becomes a causal difference. Tustin maps it
+            // to (2/T)(1 − z⁻¹)/(1 + z⁻¹), causal but with a pole at z = −1 that rings at the Nyquist rate; the
+            // others have no causal form at all.
             return Outcome<Result>.Refused(
-                "The compensator is improper (more zeros than poles, e.g. ideal PD or PID) and has no causal sampled form",
-                "Add a derivative filter (design with a filter ratio of about 10) before discretizing.", Setting.FilterRatio);
+                method is DiscretizationMethod.Tustin or DiscretizationMethod.Prewarp
+                    ? "The compensator is improper (an ideal derivative, e.g. ideal PD or PID): under Tustin its derivative gets a pole at z = −1, an undamped oscillation at the Nyquist rate"
+                    : "The compensator is improper (an ideal derivative, e.g. ideal PD or PID) and has no causal sampled form by this method",
+                "Use backward Euler, which turns the ideal derivative into a causal difference, or add a derivative filter (a filter ratio of about 10).",
+                Setting.FilterRatio);
         }
 
         if (c.Delay > 0)
@@ -240,8 +246,10 @@ public static class Discretizer
 
         if (backward)
         {
-            // Each factor carries 1/z: the ratio leaves z^(n − m) on the numerator side, i.e. zeros at the origin.
-            zeros.AddRange(Enumerable.Repeat(Complex.Zero, g.Poles.Length - g.Zeros.Length));
+            // Each factor carries 1/z: the ratio leaves z^(n − m), i.e. zeros at the origin for n > m, and for an
+            // ideal derivative (m > n) poles there: a causal difference such as (1 − z⁻¹)/T.
+            var excess = g.Poles.Length - g.Zeros.Length;
+            (excess >= 0 ? zeros : poles).AddRange(Enumerable.Repeat(Complex.Zero, Math.Abs(excess)));
         }
 
         return DiscreteTransferFunction.FromFactors(gain.Real, zeros, poles, t);

@@ -78,6 +78,42 @@ public class DiscretizerTests
     }
 
     [Fact]
+    public void Backward_IdealPd_TheCausalDifferenceByHand()
+    {
+        // s → (1 − z⁻¹)/T (backward rectangular rule; common practice): 2 + 0.5s at T = 0.01 becomes
+        // (2 + 0.5/T) − (0.5/T) z⁻¹ = 52 − 50 z⁻¹.
+        var d = Of("2+0.5s", 0.01, DiscretizationMethod.Backward);
+        SameCoefficients([52.0, -50.0], d.Numerator, 1e-12);
+        SameCoefficients([1.0, 0.0], d.Denominator);
+    }
+
+    [Fact]
+    public void Backward_IdealPid_EqualsTheRuleTermByTerm()
+    {
+        // Kp + Ki/s + Kd·s with s → (z − 1)/(Tz): Kp + Ki·T·z/(z − 1) + Kd·(z − 1)/(T·z), at any z.
+        const double kp = 3, ki = 2, kd = 0.25, t = 0.02;
+        var d = Of($"{kp}+{ki}/s+{kd}s", t, DiscretizationMethod.Backward);
+        foreach (var z in new[] { new Complex(0.3, 0.4), new Complex(-0.7, 0.1), new Complex(2, -1) })
+        {
+            var expected = kp + (ki * t * z / (z - 1)) + (kd * (z - 1) / (t * z));
+            var actual = d.Evaluate(z);
+            Assert.True(Complex.Abs(actual - expected) <= 1e-10 * Complex.Abs(expected), $"z = {z}: {actual} vs {expected}");
+        }
+    }
+
+    [Theory]
+    [InlineData(DiscretizationMethod.Tustin, "z = −1")]
+    [InlineData(DiscretizationMethod.Zoh, "no causal sampled form")]
+    [InlineData(DiscretizationMethod.Matched, "no causal sampled form")]
+    public void Discretize_IdealDerivativeByAnotherMethod_RefusedPointingToBackwardEuler(DiscretizationMethod method, string reason)
+    {
+        var r = Discretizer.Discretize(FromText("2+0.5s"), 0.01, method);
+        Assert.False(r.IsSuccess);
+        Assert.Contains(reason, r.Problem!.Message, StringComparison.Ordinal);
+        Assert.Contains("backward Euler", r.Problem.Hint, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Tustin_FirstOrder_MatchesBilinearByHand()
     {
         // a/(s + a) with s = (2/T)(z − 1)/(z + 1): aT(1 + z⁻¹)/((2 + aT) − (2 − aT) z⁻¹).
