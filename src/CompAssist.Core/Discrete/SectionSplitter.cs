@@ -76,9 +76,17 @@ public static class SectionSplitter
         var s1 = new double[sections.Count];
         var s2 = new double[sections.Count];
         var output = new double[input.Count];
+        var last = 0.0;
         for (var k = 0; k < input.Count; k++)
         {
             var x = input[k];
+            if (!double.IsFinite(x))
+            {
+                // As the exported code: a non-finite input is not fed to the sections; the last output is held.
+                output[k] = last;
+                continue;
+            }
+
             for (var i = 0; i < sections.Count; i++)
             {
                 var q = sections[i];
@@ -88,7 +96,7 @@ public static class SectionSplitter
                 x = y;
             }
 
-            output[k] = x;
+            output[k] = last = x;
         }
 
         return output;
@@ -102,9 +110,16 @@ public static class SectionSplitter
         var s1 = new float[sections.Count];
         var s2 = new float[sections.Count];
         var output = new double[input.Count];
+        var last = 0.0f;
         for (var k = 0; k < input.Count; k++)
         {
             var x = (float)input[k];
+            if (!float.IsFinite(x))
+            {
+                output[k] = last;
+                continue;
+            }
+
             for (var i = 0; i < sections.Count; i++)
             {
                 var q = sections[i];
@@ -115,6 +130,7 @@ public static class SectionSplitter
                 x = y;
             }
 
+            last = x;
             output[k] = x;
         }
 

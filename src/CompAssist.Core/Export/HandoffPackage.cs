@@ -180,19 +180,22 @@ public sealed record HandoffPackage(
             ("impulse", [1.0, .. Enumerable.Repeat(0.0, 99)]),
             ("step", [.. Enumerable.Repeat(1.0, 100)]),
             ("random", [.. Enumerable.Range(0, 100).Select(_ => (2 * random.NextDouble()) - 1)]),
+            ("nonfinite", [.. Enumerable.Range(0, 30).Select(k => k == 10 ? double.NaN : k == 20 ? double.PositiveInfinity : 1.0)]),
         };
+        static string Input(double x) => double.IsNaN(x) ? "nan" : double.IsPositiveInfinity(x) ? "inf" : double.IsNegativeInfinity(x) ? "-inf" : x.ToString("R", CultureInfo.InvariantCulture);
         var sb = new StringBuilder();
         sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist test vectors for a {sections.Length}-section cascade (transposed direct form II), sample time {sampleTime:R} s.");
         sb.AppendLine("# Feed 'input' to <name>_step from <name>_init, one row per sample; 'expected' is the");
         sb.AppendLine($"# output of the same section cascade with the coefficients as stored ({format}; fixed point: the real-valued cascade of the rounded coefficients). Runs restart from rest. Units: input = control error,");
-        sb.AppendLine("# output = actuator command. The controller is not a safety function; see the report's caution.");
+        sb.AppendLine("# output = actuator command. Run 'nonfinite' feeds nan and inf: the step returns the previous output,");
+        sb.AppendLine("# holds its states and sets the fault flag. The controller is not a safety function; see the report's caution.");
         sb.AppendLine("run,k,input,expected");
         foreach (var (name, input) in runs)
         {
             var output = format.Kind == NumberFormatKind.Float ? SectionSplitter.FilterSingle(sections, input) : SectionSplitter.Filter(sections, input);
             for (var k = 0; k < input.Length; k++)
             {
-                sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{input[k]:R},{output[k]:R}");
+                sb.AppendLine(CultureInfo.InvariantCulture, $"{name},{k},{Input(input[k])},{output[k]:R}");
             }
         }
 

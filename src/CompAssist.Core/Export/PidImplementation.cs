@@ -7,7 +7,8 @@ namespace CompAssist.Core.Export;
 /// proportional on the error, integral by forward accumulation Ki·T·e, derivative on the measurement (no kick
 /// on reference steps) through the first-order filter Tf by backward difference, output clamped to
 /// [UMin, UMax], and anti-windup by clamping or back-calculation. Positional form; the incremental form computes
-/// the same output as the clamped sum of its increments.
+/// the same output as the clamped sum of its increments. A non-finite reference or measurement (a failed sensor
+/// read) leaves every state as it was, returns the last output and sets <see cref="Fault"/>.
 /// </summary>
 public sealed class PidImplementation
 {
@@ -17,6 +18,7 @@ public sealed class PidImplementation
     private double _previousError;
     private double _previousOutput;
     private bool _started;
+    private double _last;
 
     /// <summary>Creates the controller from the parallel gains of a design.</summary>
     /// <exception cref="ArgumentException">T is not positive or the limits are inverted.</exception>
@@ -68,8 +70,22 @@ public sealed class PidImplementation
         return Math.Max(tt, sampleTime);
     }
 
-    /// <summary>One sample: reference r and measurement y in, clamped command out.</summary>
+    /// <summary>True once a non-finite reference or measurement was given (the exported code's fault flag).</summary>
+    public bool Fault { get; private set; }
+
+    /// <summary>One sample: reference r and measurement y in, clamped command out (the last one held on a non-finite input).</summary>
     public double Step(double reference, double measurement)
+    {
+        if (!double.IsFinite(reference) || !double.IsFinite(measurement))
+        {
+            Fault = true;
+            return _last;
+        }
+
+        return _last = Compute(reference, measurement);
+    }
+
+    private double Compute(double reference, double measurement)
     {
         if (!_started)
         {

@@ -43,22 +43,25 @@ public class HandoffCommandTests
             var rows = File.ReadAllLines(Path.Combine(folder, "belt_axis-vectors.csv")).Where(l => !l.StartsWith('#') && !l.StartsWith("run,", StringComparison.Ordinal))
                 .Select(l => l.Split(',')).ToList();
             var program = new System.Text.StringBuilder();
-            program.AppendLine("#include <stdio.h>\n#include \"belt_axis.h\"\nint main(void)\n{\n    belt_axis_state s;");
+            program.AppendLine("#include <math.h>\n#include <stdio.h>\n#include \"belt_axis.h\"\nint main(void)\n{\n    belt_axis_state s;");
             foreach (var run in rows.GroupBy(r => r[0]))
             {
                 program.AppendLine("    belt_axis_init(&s);");
                 foreach (var r in run)
                 {
-                    program.AppendLine(CultureInfo.InvariantCulture, $"    printf(\"%.17g\\n\", belt_axis_step(&s, {r[2]}));");
+                    var input = r[2] switch { "nan" => "NAN", "inf" => "INFINITY", "-inf" => "-INFINITY", var v => v };
+                    program.AppendLine(CultureInfo.InvariantCulture, $"    printf(\"%.17g\\n\", belt_axis_step(&s, {input}));");
                 }
             }
 
-            program.AppendLine("    return 0;\n}");
+            program.AppendLine("    return s.fault == 1 ? 0 : 99; /* the last run fed nan and inf: the fault flag must be set */\n}");
             File.WriteAllText(Path.Combine(folder, "main.c"), program.ToString());
             var compiler = new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.First(File.Exists);
             var compile = Run(compiler, "-std=c99 -Wall -Wextra -Werror -pedantic -o test main.c belt_axis.c", folder);
             Assert.True(compile.Code == 0, compile.Error);
-            var outputs = Run(Path.Combine(folder, "test"), string.Empty, folder).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+            var ran = Run(Path.Combine(folder, "test"), string.Empty, folder);
+            Assert.True(ran.Code == 0, $"the fault flag was not set after nan and inf inputs (exit {ran.Code})");
+            var outputs = ran.Output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
             Assert.Equal(rows.Count, outputs.Length);
             for (var i = 0; i < rows.Count; i++)
             {

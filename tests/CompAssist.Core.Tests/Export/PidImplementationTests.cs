@@ -74,10 +74,15 @@ public class PidImplementationTests
     {
         var reference = new PidImplementation(Gains, 0.01, -1.0, 1.0, scheme, incremental: incremental);
         var random = new Random(11);
-        var rows = Enumerable.Range(0, 400).Select(k => (R: k < 200 ? 5.0 : -3.0, Y: (0.01 * k) + ((random.NextDouble() - 0.5) * 0.05))).ToList();
+        // A failed sensor read (NaN) at k = 150 and an infinite reference at k = 300: the output is held and the
+        // fault flag set, and the loop goes on from the states as they were.
+        var rows = Enumerable.Range(0, 400).Select(k => (R: k == 300 ? double.PositiveInfinity : k < 200 ? 5.0 : -3.0, Y: k == 150 ? double.NaN : (0.01 * k) + ((random.NextDouble() - 0.5) * 0.05))).ToList();
         var expected = rows.Select(row => reference.Step(row.R, row.Y)).ToList();
         Assert.Contains(1.0, expected);
         Assert.Contains(-1.0, expected);
+        Assert.Equal(expected[149], expected[150]);
+        Assert.Equal(expected[299], expected[300]);
+        Assert.True(reference.Fault);
 
         var directory = Directory.CreateTempSubdirectory("compassist-pid-").FullName;
         try
@@ -85,11 +90,14 @@ public class PidImplementationTests
             var (header, source) = PidCodeGenerator.Generate("pid_ctrl", reference, "test");
             File.WriteAllText(Path.Combine(directory, "pid_ctrl.h"), header);
             File.WriteAllText(Path.Combine(directory, "pid_ctrl.c"), source);
-            var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", pid_ctrl_step(&s, {r.R.ToString("R", CultureInfo.InvariantCulture)}, {r.Y.ToString("R", CultureInfo.InvariantCulture)}));"));
-            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"pid_ctrl.h\"\nint main(void)\n{\n    pid_ctrl_state s;\n    pid_ctrl_init(&s);\n" + calls + "\n    return 0;\n}\n");
+            static string C(double v) => double.IsNaN(v) ? "NAN" : double.IsPositiveInfinity(v) ? "INFINITY" : v.ToString("R", CultureInfo.InvariantCulture);
+            var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", pid_ctrl_step(&s, {C(r.R)}, {C(r.Y)}));"));
+            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <math.h>\n#include <stdio.h>\n#include \"pid_ctrl.h\"\nint main(void)\n{\n    pid_ctrl_state s;\n    pid_ctrl_init(&s);\n" + calls + "\n    printf(\"%d\\n\", s.fault);\n    return 0;\n}\n");
             CCompiler.Compile(directory, "-O2", "main.c pid_ctrl.c");
             var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output
                 .Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
+            Assert.Equal(1.0, outputs[^1]); // the fault flag
+            outputs.RemoveAt(outputs.Count - 1);
             Assert.Equal(expected.Count, outputs.Count);
             for (var k = 0; k < expected.Count; k++)
             {
