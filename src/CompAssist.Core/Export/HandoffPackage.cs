@@ -78,29 +78,29 @@ public sealed record HandoffPackage(
             note = $"no value on the ladder from {F(ladder.Start)} s down to {F(t)} s meets every requirement the continuous loop meets when sampled; the package uses T = {F(t)} s and FAILS there";
         }
 
-        var sampled = ladder.Rungs.FirstOrDefault(r => r.SampleTime == t) ?? SampleTimeLadder.Rung(loop, c, report.Check, options, t);
-        if (sampled is not null && !sampled.Meets)
-        {
-            var better = ladder.Recommended is { } ok && ok != t ? $"; T = {F(ok)} s meets" : string.Empty;
-            note += $". At T = {F(t)} s the sampled loop FAILS: {sampled.Binds}{better}";
-        }
-
-        if (double.IsFinite(wc) && sampled is not null)
-        {
-            var hold = wc * t / 2 * 180 / Math.PI;
-            note += $". Phase margin {F(sampled.PhaseMarginDeg)}° sampled against {F(margins.PhaseMarginDeg)}° continuous (the hold alone costs about ωc·T/2 = {F(hold)}°{(options.ComputationDelay ? $", the one-sample computation delay about {F(wc * t * 180 / Math.PI)}°" : string.Empty)}).";
-        }
-
         var discrete = Discretizer.Discretize(c, t, options.Method, options.PrewarpFrequency);
         if (!discrete.IsSuccess)
         {
             return Outcome<HandoffPackage>.Refused(discrete.Problem);
         }
 
+        var sampled = ladder.Rungs.FirstOrDefault(r => r.SampleTime == t) ?? SampleTimeLadder.RungOf(loop, report.Check, options, discrete.Value.Discrete);
+        if (!sampled.Meets)
+        {
+            var better = ladder.Recommended is { } ok && ok != t ? $"; T = {F(ok)} s meets" : string.Empty;
+            note += $". At T = {F(t)} s the sampled loop FAILS: {sampled.Binds}{better}";
+        }
+
+        if (double.IsFinite(wc))
+        {
+            var hold = wc * t / 2 * 180 / Math.PI;
+            note += $". Phase margin {F(sampled.PhaseMarginDeg)}° sampled against {F(margins.PhaseMarginDeg)}° continuous (the hold alone costs about ωc·T/2 = {F(hold)}°{(options.ComputationDelay ? $", the one-sample computation delay about {F(wc * t * 180 / Math.PI)}°" : string.Empty)}).";
+        }
+
         var d = discrete.Value.Discrete;
         var sections = SectionSplitter.Split(d);
         var quantization = Quantizer.Quantize(d, sections, options.Format);
-        var proof = sampled?.Proof ?? SampledLoop.Prove(loop, quantization.Quantized, options.ComputationDelay);
+        var proof = sampled.Proof;
         var origin = $"{(caseName.Length > 0 ? caseName + ": " : string.Empty)}C(s) = {c} for G(s) = {loop.Plant}, H(s) = {loop.Feedback}";
         var files = ImmutableDictionary.CreateBuilder<string, string>();
         if (!CLiterals.IsIdentifier(options.Name))
@@ -169,7 +169,7 @@ public sealed record HandoffPackage(
         files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note, ladder));
         files.Add($"{options.Name}-vectors.csv", vectors);
         files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, ladder, caseName, [.. files.Keys, $"{options.Name}-report.md"]));
-        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note, ladder, sampled ?? SampleTimeLadder.Rung(loop, c, report.Check, options, t)!));
+        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note, ladder, sampled));
     }
 
     private static string Vectors(ImmutableArray<Section> sections, NumberFormat format, double sampleTime)

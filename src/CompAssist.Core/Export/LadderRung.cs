@@ -15,30 +15,18 @@ public sealed record LadderRung(double SampleTime, SampledLoopProof Proof, doubl
     public bool Meets => Proof.Stable && Checks.All(c => c.Passes != false);
 
     /// <summary>The short name of what binds ("overshoot %", "unstable"), for tables; null when the rung meets.</summary>
-    public string? BindingName => !Proof.Stable
-        ? "unstable"
-        : Checks.Where(c => c.Passes == false)
-            .OrderByDescending(c => Math.Abs(c.Measured - c.Required!.Value) / Math.Max(Math.Abs(c.Required.Value), 1e-12))
-            .Select(c => c.Name)
-            .FirstOrDefault();
+    public string? BindingName => !Proof.Stable ? "unstable" : Worst()?.Row.Name;
 
     /// <summary>The requirement that fails by the largest fraction of its bound, and by how much; null when none fails.</summary>
-    public string? Binds
-    {
-        get
-        {
-            if (!Proof.Stable)
-            {
-                return "unstable";
-            }
+    public string? Binds => !Proof.Stable
+        ? "unstable"
+        : Worst() is { } w
+            ? $"{w.Row.Name} {Model.TransferFunctionFormatter.Number(w.Row.Measured, 4)} against {w.Row.BoundSymbol} {Model.TransferFunctionFormatter.Number(w.Row.Required!.Value, 4)} ({Model.TransferFunctionFormatter.Number(100 * w.Off, 3)} % off)"
+            : null;
 
-            var worst = Checks.Where(c => c.Passes == false)
-                .Select(c => (Row: c, Off: Math.Abs(c.Measured - c.Required!.Value) / Math.Max(Math.Abs(c.Required.Value), 1e-12)))
-                .OrderByDescending(x => x.Off)
-                .FirstOrDefault();
-            return worst.Row is null
-                ? null
-                : $"{worst.Row.Name} {Model.TransferFunctionFormatter.Number(worst.Row.Measured, 4)} against {worst.Row.BoundSymbol} {Model.TransferFunctionFormatter.Number(worst.Row.Required!.Value, 4)} ({Model.TransferFunctionFormatter.Number(100 * worst.Off, 3)} % off)";
-        }
-    }
+    private (RequirementCheck Row, double Off)? Worst() => Checks.Where(c => c.Passes == false)
+        .Select(c => (Row: c, Off: Math.Abs(c.Measured - c.Required!.Value) / Math.Max(Math.Abs(c.Required.Value), 1e-12)))
+        .OrderByDescending(x => x.Off)
+        .Select(x => ((RequirementCheck, double)?)x)
+        .FirstOrDefault();
 }

@@ -81,12 +81,17 @@ public sealed record SampleTimeLadder(double Bandwidth, double Start, ImmutableA
         ArgumentNullException.ThrowIfNull(continuous);
         ArgumentNullException.ThrowIfNull(options);
         var discrete = Discretizer.Discretize(compensator, sampleTime, options.Method, options.PrewarpFrequency);
-        if (!discrete.IsSuccess)
-        {
-            return null;
-        }
+        return discrete.IsSuccess ? RungOf(loop, continuous, options, discrete.Value.Discrete) : null;
+    }
 
-        var d = discrete.Value.Discrete;
+    /// <summary>The sampled loop with the controller <paramref name="d"/> (stored in the options' number format).</summary>
+    public static LadderRung RungOf(Loop loop, LoopCheckReport continuous, HandoffOptions options, DiscreteTransferFunction d)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        ArgumentNullException.ThrowIfNull(continuous);
+        ArgumentNullException.ThrowIfNull(options);
+        ArgumentNullException.ThrowIfNull(d);
+        var sampleTime = d.SampleTime;
         var stored = Quantizer.Quantize(d, SectionSplitter.Split(d), options.Format).Quantized;
         var proof = SampledLoop.Prove(loop, stored, options.ComputationDelay);
         var pm = proof.Stable ? PhaseMargin(loop, stored, proof.DelaySamples) : double.NaN;

@@ -121,13 +121,12 @@ public sealed class Loop
     public Problem? WellPosednessProblem(TransferFunction compensator)
     {
         ArgumentNullException.ThrowIfNull(compensator);
-        var open = OpenLoop(compensator);
-        if (open.RelativeDegree != 0)
+        if (OpenLoop(compensator).RelativeDegree != 0)
         {
             return null;
         }
 
-        var atInfinity = SignFactor * open.Gain;
+        var atInfinity = SignedGainAtInfinity(compensator);
         const double tolerance = 1e-9;
         if (Delay == 0 && Math.Abs(1.0 + atInfinity) <= tolerance * Math.Max(1.0, Math.Abs(atInfinity)))
         {

@@ -54,9 +54,9 @@ public static class LoopCheck
         var window = stable ? ShownWindow(measured, horizon) : horizon;
         var h = window / options.Intervals;
         var intervals = options.Intervals;
-        var output = delayed is not null ? Resampled(delayed.Output, h, intervals) : StepSimulator.Step(outputSystem, h, options.Intervals);
+        var output = delayed is not null ? delayed.Output.Resampled(h, intervals) : StepSimulator.Step(outputSystem, h, options.Intervals);
         var effort = new Lazy<SampledResponse?>(() => delayed is not null
-            ? (delayed.Effort is { } u ? Resampled(u, h, intervals) : null)
+            ? (delayed.Effort is { } u ? u.Resampled(h, intervals) : null)
             : effortSystem is not null ? StepSimulator.Step(effortSystem, h, intervals) : null);
         var metrics = measured with { SampleTime = h };
         var stepError = stable ? (Math.Abs(1.0 - final) <= RoundingLevel ? 0.0 : 1.0 - final) : double.NaN;
@@ -84,7 +84,7 @@ public static class LoopCheck
         if (trajectory.Capped && delayed is null)
         {
             var slowest = closedLoopPoles.Where(p => p.Imaginary > 0 && p.Real < 0).Select(p => -p.Real).DefaultIfEmpty(double.NaN).Min();
-            warnings.Add($"The loop is so lightly damped that the simulation stops at {F(horizon)} s ({StepTrajectory.MaxOscillationSamples / 2 / Math.PI:F0} radians of its oscillation, about {StepTrajectory.MaxOscillationSamples / 4 / Math.PI:F0} periods) instead of running until it settles: its envelope needs about 4/σ = {F(4 / slowest)} s to enter the ±2 % band. Overshoot, peak and rise are measured (over so many periods rounding can grow the oscillation by about 0.2 %, which then exceeds its true decay for ζ below about 1e-7); the settling time is beyond the simulated span.");
+            warnings.Add($"The loop is so lightly damped that the simulation stops at {F(horizon)} s ({StepTrajectory.MaxOscillationSamples / 2:F0} radians of its oscillation, about {StepTrajectory.MaxOscillationSamples / 4 / Math.PI:F0} periods) instead of running until it settles: its envelope needs about 4/σ = {F(4 / slowest)} s to enter the ±2 % band. Overshoot, peak and rise are measured (over so many periods rounding can grow the oscillation by about 0.2 %, which then exceeds its true decay for ζ below about 1e-7); the settling time is beyond the simulated span.");
         }
 
         if (stable && double.IsPositiveInfinity(metrics.SettlingTime2Percent))
@@ -238,21 +238,6 @@ public static class LoopCheck
         // A type-2 loop has T′(0) = 0: the terms cancel to rounding, which is zero, not a tiny error.
         var error = -(t0 * logDerivative.Real);
         return Math.Abs(error) <= RoundingLevel * Math.Abs(t0) * size ? 0.0 : error;
-    }
-
-    /// <summary>The response on another grid (t = k·h, k = 0…intervals), linear between the fine samples.</summary>
-    private static SampledResponse Resampled(SampledResponse fine, double h, int intervals)
-    {
-        var values = ImmutableArray.CreateBuilder<double>(intervals + 1);
-        var y = fine.Values;
-        for (var k = 0; k <= intervals; k++)
-        {
-            var j = k * h / fine.SampleTime;
-            var i = (int)Math.Floor(j);
-            values.Add(i >= y.Length - 1 ? y[^1] : y[i] + ((j - i) * (y[i + 1] - y[i])));
-        }
-
-        return new SampledResponse(h, values.MoveToImmutable());
     }
 
     private static EffortFigures SampledEffort(SampledResponse u, double initial, CheckOptions options)

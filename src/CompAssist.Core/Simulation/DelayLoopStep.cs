@@ -1,5 +1,3 @@
-using System.Collections.Immutable;
-using System.Numerics;
 using CompAssist.Core.Model;
 using CompAssist.Core.Numerics;
 
@@ -66,215 +64,141 @@ public sealed class DelayLoopStep
             return null;
         }
 
-        var path = Series.Of(CascadeRealization.Of(forward), CascadeRealization.Of(h0));
+        // One realization from e: C₀G₀ (output z, before the forward delay), then H₀ (output q, fed back after θ).
+        var forwardSystem = CascadeRealization.Of(forward);
+        var whole = forwardSystem.Then(CascadeRealization.Of(h0));
+        var zRow = Row.Of(forwardSystem, whole.Order);
+        var qRow = Row.Of(whole, whole.Order);
+        var uSystem = c0.IsProper ? CascadeRealization.Of(c0) : null;
+        var uRow = uSystem is null ? null : Row.Of(uSystem, uSystem.Order);
         var sign = loop.SignFactor;
 
-        // e_k^- and e_k^+ (left and right limits at t_k), q likewise; z = (C₀G₀)e before the forward delay.
-        var eMinus = new double[steps + 1];
-        var ePlus = new double[steps + 1];
+        // Left and right limits at t_k of q (a biproper loop passes its jumps around), and z and u after them.
         var qMinus = new double[steps + 1];
         var qPlus = new double[steps + 1];
         var z = new double[steps + 1];
-        double Fed(double[] q, int j) => j < 0 ? 0.0 : q[j];
-
-        var step = Hold.Of(path.A, path.B, h);
-        var x = new double[path.Order];
-        eMinus[0] = 1.0 - (sign * Fed(qMinus, -m));
-        ePlus[0] = 1.0 - (sign * Fed(qPlus, -m));
+        var u = uSystem is null ? null : new double[steps + 1];
+        var loopHold = new Hold(whole, h);
+        var uHold = uSystem is null ? null : new Hold(uSystem, h);
+        var x = new double[whole.Order];
+        var xu = new double[uSystem?.Order ?? 0];
+        var ePlus = 1.0; // e(0⁺): the reference has stepped, nothing has come back yet
         for (var k = 0; ; k++)
         {
-            qPlus[k] = path.Feedback(x, ePlus[k]);
-            qMinus[k] = k == 0 ? 0.0 : path.Feedback(x, eMinus[k]);
-            z[k] = path.Forward(x, ePlus[k]);
+            var eMinus = k == 0 ? 0.0 : 1.0 - (sign * (k - m >= 0 ? qMinus[k - m] : 0.0));
+            if (k > 0)
+            {
+                ePlus = 1.0 - (sign * (k - m >= 0 ? qPlus[k - m] : 0.0));
+            }
+
+            qPlus[k] = qRow.Value(x, ePlus);
+            qMinus[k] = k == 0 ? 0.0 : qRow.Value(x, eMinus);
+            z[k] = zRow.Value(x, ePlus);
+            if (u is not null)
+            {
+                u[k] = uRow!.Value(xu, ePlus);
+            }
+
             if (k == steps)
             {
                 break;
             }
 
-            eMinus[k + 1] = 1.0 - (sign * Fed(qMinus, k + 1 - m));
-            ePlus[k + 1] = 1.0 - (sign * Fed(qPlus, k + 1 - m));
-            x = step.Advance(x, ePlus[k], eMinus[k + 1]);
+            // The input over [t_k, t_{k+1}] runs from e(t_k⁺) to e(t_{k+1}⁻), which is known: θ ≥ h.
+            var next = 1.0 - (sign * (k + 1 - m >= 0 ? qMinus[k + 1 - m] : 0.0));
+            loopHold.Advance(x, ePlus, next);
+            uHold?.Advance(xu, ePlus, next);
         }
 
-        var output = Delayed(z, h, forwardDelay, steps);
-        SampledResponse? effort = null;
-        if (c0.IsProper)
-        {
-            var u = CascadeRealization.Of(c0);
-            var uStep = Hold.Of(Series.Matrix(u), Series.Vector(u), h);
-            var xu = new double[u.Order];
-            var uz = new double[steps + 1];
-            for (var k = 0; ; k++)
-            {
-                uz[k] = Series.Output(u, xu, ePlus[k]);
-                if (k == steps)
-                {
-                    break;
-                }
-
-                xu = uStep.Advance(xu, ePlus[k], eMinus[k + 1]);
-            }
-
-            effort = Delayed(uz, h, compensator.Delay, steps);
-        }
-
+        var output = new SampledResponse(h, [.. z]).Delayed(forwardDelay);
+        var effort = u is null ? null : new SampledResponse(h, [.. u]).Delayed(compensator.Delay);
         return new DelayLoopStep(output, effort);
     }
 
-    /// <summary>v(t − d) on the same grid (zero before d), linear between samples.</summary>
-    private static SampledResponse Delayed(double[] v, double h, double d, int steps)
+    /// <summary>One output row of a realization, y = C x + D e, over a state of a given length.</summary>
+    private sealed class Row(double[] c, double d)
     {
-        var values = ImmutableArray.CreateBuilder<double>(steps + 1);
-        for (var k = 0; k <= steps; k++)
+        public static Row Of(StateSpace system, int length)
         {
-            var t = (k * h) - d;
-            if (t < -1e-12 * h)
+            var c = new double[length];
+            for (var i = 0; i < system.Order; i++)
             {
-                values.Add(0.0);
-                continue;
+                c[i] = system.C(i);
             }
 
-            var j = t / h;
-            var i = (int)Math.Floor(j + 1e-9);
-            var f = j - i;
-            values.Add(i >= steps ? v[steps] : f <= 1e-9 ? v[i] : ((1 - f) * v[i]) + (f * v[i + 1]));
+            return new Row(c, system.D);
         }
 
-        return new SampledResponse(h, values.MoveToImmutable());
+        public double Value(double[] x, double e)
+        {
+            var sum = d * e;
+            for (var i = 0; i < x.Length; i++)
+            {
+                sum += c[i] * x[i];
+            }
+
+            return sum;
+        }
     }
 
-    /// <summary>The exact transition over h for an input linear between its values at the ends.</summary>
-    private sealed class Hold(double[,] phi, double[] start, double[] ramp)
+    /// <summary>The exact transition over h for an input linear between its values at the ends, applied in place.</summary>
+    private sealed class Hold
     {
-        public static Hold Of(double[,] a, double[] b, double h)
+        private readonly double[,] _phi;
+        private readonly double[] _start;
+        private readonly double[] _ramp;
+        private readonly double[] _scratch;
+
+        public Hold(StateSpace system, double h)
         {
             // exp([[A h, B h, 0], [0, 0, 1], [0, 0, 0]]): Φ, Γ₀ = ∫₀ʰ e^{Aσ}B dσ and Γ₁ = (1/h)∫₀ʰ e^{A(h−τ)}B τ dτ.
-            var n = b.Length;
+            var n = system.Order;
             var m = new double[n + 2, n + 2];
             for (var i = 0; i < n; i++)
             {
                 for (var j = 0; j < n; j++)
                 {
-                    m[i, j] = a[i, j] * h;
+                    m[i, j] = system.A(i, j) * h;
                 }
 
-                m[i, n] = b[i] * h;
+                m[i, n] = system.B(i) * h;
             }
 
             m[n, n + 1] = 1.0;
             var e = MatrixExponential.Of(m);
-            var phi = new double[n, n];
-            var g0 = new double[n];
-            var g1 = new double[n];
+            _phi = new double[n, n];
+            _start = new double[n];
+            _ramp = new double[n];
+            _scratch = new double[n];
             for (var i = 0; i < n; i++)
             {
                 for (var j = 0; j < n; j++)
                 {
-                    phi[i, j] = e[i, j];
+                    _phi[i, j] = e[i, j];
                 }
 
-                g0[i] = e[i, n];
-                g1[i] = e[i, n + 1];
+                _start[i] = e[i, n];
+                _ramp[i] = e[i, n + 1];
             }
-
-            return new Hold(phi, g0, g1);
         }
 
-        /// <summary>x(t + h) for the input going linearly from <paramref name="from"/> to <paramref name="to"/>.</summary>
-        public double[] Advance(double[] x, double from, double to)
+        /// <summary>x ← x(t + h) for the input going linearly from <paramref name="from"/> to <paramref name="to"/>.</summary>
+        public void Advance(double[] x, double from, double to)
         {
             var n = x.Length;
-            var next = new double[n];
             var slope = to - from;
             for (var i = 0; i < n; i++)
             {
-                var sum = (start[i] * from) + (ramp[i] * slope);
+                var sum = (_start[i] * from) + (_ramp[i] * slope);
                 for (var j = 0; j < n; j++)
                 {
-                    sum += phi[i, j] * x[j];
+                    sum += _phi[i, j] * x[j];
                 }
 
-                next[i] = sum;
+                _scratch[i] = sum;
             }
 
-            return next;
-        }
-    }
-
-    /// <summary>C₀G₀ followed by H₀, with both outputs: z (before H₀) and q (after it).</summary>
-    private sealed class Series
-    {
-        private double[] _cz = [];
-        private double _dz;
-        private double[] _cq = [];
-        private double _dq;
-
-        public double[,] A { get; private init; } = new double[0, 0];
-
-        public double[] B { get; private init; } = [];
-
-        public int Order => B.Length;
-
-        public static Series Of(StateSpace forward, StateSpace feedback)
-        {
-            var whole = forward.Then(feedback);
-            var n1 = forward.Order;
-            var n = whole.Order;
-            var cz = new double[n];
-            for (var i = 0; i < n1; i++)
-            {
-                cz[i] = forward.C(i);
-            }
-
-            var cq = new double[n];
-            for (var i = 0; i < n; i++)
-            {
-                cq[i] = whole.C(i);
-            }
-
-            return new Series { A = Matrix(whole), B = Vector(whole), _cz = cz, _dz = forward.D, _cq = cq, _dq = whole.D };
-        }
-
-        public static double[,] Matrix(StateSpace s)
-        {
-            var a = new double[s.Order, s.Order];
-            for (var i = 0; i < s.Order; i++)
-            {
-                for (var j = 0; j < s.Order; j++)
-                {
-                    a[i, j] = s.A(i, j);
-                }
-            }
-
-            return a;
-        }
-
-        public static double[] Vector(StateSpace s) => [.. Enumerable.Range(0, s.Order).Select(s.B)];
-
-        public static double Output(StateSpace s, double[] x, double input)
-        {
-            var sum = s.D * input;
-            for (var i = 0; i < x.Length; i++)
-            {
-                sum += s.C(i) * x[i];
-            }
-
-            return sum;
-        }
-
-        public double Forward(double[] x, double e) => Dot(_cz, x) + (_dz * e);
-
-        public double Feedback(double[] x, double e) => Dot(_cq, x) + (_dq * e);
-
-        private static double Dot(double[] a, double[] b)
-        {
-            var sum = 0.0;
-            for (var i = 0; i < a.Length; i++)
-            {
-                sum += a[i] * b[i];
-            }
-
-            return sum;
+            Array.Copy(_scratch, x, n);
         }
     }
 }

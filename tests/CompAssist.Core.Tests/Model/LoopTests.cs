@@ -5,7 +5,7 @@ namespace CompAssist.Core.Tests.Model;
 
 public class LoopTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+    private static TransferFunction Parsed(string text) => ExpressionParser.Parse(text, false).Value!;
 
     [Theory]
     [InlineData("(s+1)/(s+2)", "-1", FeedbackSign.Negative, true)]
@@ -23,14 +23,14 @@ public class LoopTests
         // Without a delay, 1 + L(∞) = 0 drops the leading term of the characteristic polynomial; with a delay,
         // |L(∞)| = 1 puts a chain of roots on the imaginary axis asymptotically (common practice: well-posedness
         // of a feedback loop; neutral delay equations).
-        var loop = Loop.Create(Tf(plant), null, sign);
-        Assert.Equal(expected, loop.WellPosednessProblem(Tf(compensator)) is not null);
+        var loop = Loop.Create(Parsed(plant), null, sign);
+        Assert.Equal(expected, loop.WellPosednessProblem(Parsed(compensator)) is not null);
     }
 
     [Fact]
     public void SignedGainAtInfinity_BiproperAndStrictlyProper_HighFrequencyGainWithSign()
     {
-        Assert.Equal(-3.0, Loop.Create(Tf("3(s+1)/(s+2)"), null, FeedbackSign.Positive).SignedGainAtInfinity(Tf("1")), 12);
-        Assert.Equal(0.0, Loop.Create(Tf("3/(s+2)")).SignedGainAtInfinity(Tf("(s+1)/(s+5)")));
+        Assert.Equal(-3.0, Loop.Create(Parsed("3(s+1)/(s+2)"), null, FeedbackSign.Positive).SignedGainAtInfinity(Parsed("1")), 12);
+        Assert.Equal(0.0, Loop.Create(Parsed("3/(s+2)")).SignedGainAtInfinity(Parsed("(s+1)/(s+5)")));
     }
 }

@@ -16,7 +16,7 @@ namespace CompAssist.Core.Tests.Simulation;
 /// </summary>
 public class DelayLoopStepTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, false).Value!;
+    private static TransferFunction Parsed(string text) => ExpressionParser.Parse(text, false).Value!;
 
     private static LoopCheckReport Check(Loop loop, TransferFunction c) =>
         LoopCheck.Run(loop, c, RootFinder.Find(loop.Characteristic(c)).Roots, new CheckOptions());
@@ -27,8 +27,8 @@ public class DelayLoopStepTests
         // G = 2e^(−0.5s)/(s+1), C = 0.8, so y' = −y + 1.6(1 − y(t − 0.5)) with y = 0 up to 0.5 s.
         // On [0.5, 1]: y = 1.6(1 − e^(−(t−0.5))). On [1, 1.5]: y = −0.96 + (A + 2.56(t−1))e^(−(t−1)) with
         // A = 1.6(1 − e^(−0.5)) + 0.96; its peak is at t − 1 = (2.56 − A)/2.56. Final value 1.6/2.6.
-        var loop = Loop.Create(Tf("2exp(-0.5s)/(s+1)"));
-        var check = Check(loop, Tf("0.8"));
+        var loop = Loop.Create(Parsed("2exp(-0.5s)/(s+1)"));
+        var check = Check(loop, Parsed("0.8"));
         Assert.Equal(StepSolution.ExactDelay, check.Solution);
         var final = 1.6 / 2.6;
         var t10 = 0.5 - Math.Log(1 - (0.1 * final / 1.6));
@@ -80,8 +80,8 @@ public class DelayLoopStepTests
         // A single-loop delay commutes around the loop: C·e^(−θs) with G gives the same output as C with
         // G·e^(−θs). An independent RK4 integration of this loop gave 30.4934 % overshoot, 0.604012 s rise
         // and 4.94583 s (2 %) settling; the final value is 1 (an integrating plant).
-        var inCompensator = Check(Loop.Create(Tf("3/(s(s+3))")), Tf("2exp(-0.2s)"));
-        var inPlant = Check(Loop.Create(Tf("3exp(-0.2s)/(s(s+3))")), Tf("2"));
+        var inCompensator = Check(Loop.Create(Parsed("3/(s(s+3))")), Parsed("2exp(-0.2s)"));
+        var inPlant = Check(Loop.Create(Parsed("3exp(-0.2s)/(s(s+3))")), Parsed("2"));
         Tolerance.Close(1.0, inCompensator.Step.FinalValue, 1e-9);
         Tolerance.Close(inPlant.Step.OvershootPercent, inCompensator.Step.OvershootPercent, 1e-9);
         Tolerance.Close(inPlant.Step.SettlingTime2Percent, inCompensator.Step.SettlingTime2Percent, 1e-9);
@@ -93,6 +93,6 @@ public class DelayLoopStepTests
     [Fact]
     public void Simulate_NoDelay_Null()
     {
-        Assert.Null(DelayLoopStep.Simulate(Loop.Create(Tf("1/(s+1)")), Tf("1"), 10));
+        Assert.Null(DelayLoopStep.Simulate(Loop.Create(Parsed("1/(s+1)")), Parsed("1"), 10));
     }
 }
