@@ -349,6 +349,7 @@ internal sealed class EditorWindow : Runnable
         K(KeyScope.Handoff, "t", "type the sample time (empty: recommended)", AskSampleTime, Key.T);
         K(KeyScope.Handoff, "d", "one sample of computation delay in the sampled proof, on / off", () => { handoffOptions = handoffOptions with { ComputationDelay = !handoffOptions.ComputationDelay }; page.Refresh(HandoffText()); }, Key.D);
         K(KeyScope.Handoff, "a", "anti-windup of the exported PID: clamping, back-calculation, none", CycleAntiWindup, Key.A);
+        K(KeyScope.Handoff, "e", "derivative of the exported PID on the measurement / on the error", () => { handoffOptions = handoffOptions with { DerivativeOnError = !handoffOptions.DerivativeOnError }; page.Refresh(HandoffText()); }, Key.E);
         K(KeyScope.Handoff, "w", "write the package (C, JSON, CSV vectors, report, plots)", AskHandoffFolder, Key.W);
     }
 
@@ -832,7 +833,7 @@ internal sealed class EditorWindow : Runnable
             return;
         }
 
-        page.Open("handoff", "Hand-off to firmware", HandoffText(), "m method · n format · t sample time · d delay · a anti-windup · w write · Esc");
+        page.Open("handoff", "Hand-off to firmware", HandoffText(), "m method · n format · t sample time · d delay · a anti-windup · e derivative · w write · Esc");
     }
 
     private string HandoffText()
@@ -892,7 +893,7 @@ internal sealed class EditorWindow : Runnable
     private void CycleAntiWindup()
     {
         var all = Enum.GetValues<AntiWindup>();
-        handoffOptions = handoffOptions with { AntiWindup = all[(Array.IndexOf(all, handoffOptions.AntiWindup) + 1) % all.Length] };
+        handoffOptions = handoffOptions with { AntiWindup = all[(Array.IndexOf(all, handoffOptions.AntiWindup ?? AntiWindup.Clamping) + 1) % all.Length] };
         page.Refresh(HandoffText());
     }
 

@@ -18,11 +18,12 @@ internal static class HandoffCommand
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
         var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; code up to 24 bits).", DefaultValueFactory = _ => "double" };
         var signalBits = new WholeOption("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default half the word)." };
-        var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping or back-calculation.", DefaultValueFactory = _ => "clamping" };
+        var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping (the default) or back-calculation." };
+        var derivativeOn = new Option<string>("--derivative-on") { Description = "PID derivative on the measurement (the default: no kick on reference steps) or on the error (as designed)." };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };
         var command = new Command("handoff", "Hand a design to firmware: C code, coefficients, test vectors and a report, with the sampled loop re-proved.");
         settings.AddTo(command);
-        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, signalBits, antiWindup, name })
+        foreach (var option in new Option[] { output, sampleTime, method, prewarp, delay, format, signalBits, antiWindup, derivativeOn, name })
         {
             command.Options.Add(option);
         }
@@ -47,15 +48,24 @@ internal static class HandoffCommand
                 return CliApplication.InputError;
             }
 
-            var scheme = parse.GetValue(antiWindup)!.ToLowerInvariant() switch
+            var schemeText = parse.GetValue(antiWindup);
+            var scheme = schemeText?.ToLowerInvariant() switch
             {
+                null => null,
                 "clamping" => AntiWindup.Clamping,
                 "back-calculation" => AntiWindup.BackCalculation,
                 _ => (AntiWindup?)null,
             };
-            if (scheme is null)
+            if (schemeText is not null && scheme is null)
             {
                 stderr.WriteLine($"error: --anti-windup '{parse.GetValue(antiWindup)}' is not a scheme. Use clamping or back-calculation.");
+                return CliApplication.InputError;
+            }
+
+            var derivativeText = parse.GetValue(derivativeOn);
+            if (derivativeText is not null && derivativeText.ToLowerInvariant() is not ("measurement" or "error"))
+            {
+                stderr.WriteLine($"error: --derivative-on '{derivativeText}' is not a signal. Use measurement or error.");
                 return CliApplication.InputError;
             }
 
@@ -79,7 +89,8 @@ internal static class HandoffCommand
                 ComputationDelay = parse.GetValue(delay),
                 Format = numberFormat,
                 SignalFractionBits = parse.GetValue(signalBits),
-                AntiWindup = scheme.Value,
+                AntiWindup = scheme,
+                DerivativeOnError = derivativeText?.ToLowerInvariant() == "error",
                 Name = parse.GetValue(name)!,
             };
             var package = HandoffPackage.Build(run.Report!, options, input.Name);
@@ -125,7 +136,22 @@ internal static class HandoffCommand
                 stdout.WriteLine($"    ✗ sampled at T = {package.Value.Sampled.SampleTime:G4} s: {package.Value.Sampled.Binds}{(package.Value.Ladder.Recommended is { } ok && ok != package.Value.Sampled.SampleTime ? $"; T = {ok:G4} s meets" : string.Empty)}");
             }
 
-            return proof.Stable && verdict.Meets && package.Value.SampledMeets ? CliApplication.Success : CliApplication.Fails;
+            if (package.Value.Pid is { } pid)
+            {
+                stdout.WriteLine($"  PID as exported: {(pid.Meets ? "meets" : "FAILS")} — overshoot {pid.Reference.OvershootPercent:G4} %, 2 % settling {pid.Reference.SettlingTime2Percent:G4} s, command u − u0 {pid.CommandLowest:G4} … {pid.CommandHighest:G4}, {100 * pid.SaturatedFraction:G3} % of samples on a limit");
+                if (!pid.Meets)
+                {
+                    stdout.WriteLine($"    ✗ PID as exported: {Core.Export.ExportedPidProof.Describe(pid)}");
+                }
+
+                if (pid.Alternative is { } alt)
+                {
+                    var signal = alt.Controller.DerivativeOnError ? "error" : "measurement";
+                    stdout.WriteLine($"    → with the derivative on the {signal} it meets (overshoot {alt.Reference.OvershootPercent:G4} %, 2 % settling {alt.Reference.SettlingTime2Percent:G4} s): hand off again with --derivative-on {signal}");
+                }
+            }
+
+            return proof.Stable && verdict.Meets && package.Value.SampledMeets && package.Value.PidMeets ? CliApplication.Success : CliApplication.Fails;
         });
         return command;
     }

@@ -62,6 +62,10 @@ internal sealed class LoopSettings
 
     public RealOption ActuatorLimit { get; } = new("--actuator-limit") { Description = "Largest actuator command |u| the hardware delivers." };
 
+    public RangeOption OutputLimits { get; } = new("--output-limits") { Description = "Lowest and highest absolute actuator command LOW,HIGH (a heater: 0,100); instead of --actuator-limit." };
+
+    public RealOption OperatingPoint { get; } = new("--operating-point") { Description = "The command u0 the plant model holds about, in absolute actuator units (default 0)." };
+
     public RealOption ReferenceStep { get; } = new("--reference-step") { Description = "Reference step size for the actuator figures (default 1)." };
 
     public Option<string[]> Vary { get; } = new("--vary") { Description = "Plant variation for the robustness sweep, repeatable: gain=20% or pole=-2:10%.", AllowMultipleArgumentsPerToken = false };
@@ -75,7 +79,7 @@ internal sealed class LoopSettings
         Plant, Feedback, PositiveFeedback, PadeOrder, Target, Zeta, Wn, Overshoot, Settling, Band, PeakTime,
         RiseTime, MinPhaseMargin, MinGainMargin, MinDelayMargin, MaxSensitivity,
         Kp, Kv, Ka, StepError, RampError, ParabolaError,
-        ActuatorLimit, ReferenceStep, Vary, Json, Ascii,
+        ActuatorLimit, OutputLimits, OperatingPoint, ReferenceStep, Vary, Json, Ascii,
     ];
 
     public Core.Pictures.PictureStyle Style(ParseResult parse) => parse.GetValue(Ascii) ? Core.Pictures.PictureStyle.Ascii : Core.Pictures.PictureStyle.Unicode;
@@ -137,11 +141,30 @@ internal sealed class LoopSettings
             variations = [.. list];
         }
 
-        var actuatorLimit = parse.GetValue(ActuatorLimit) ?? baseCase.Check.ActuatorLimit;
+        var givenLimit = parse.GetValue(ActuatorLimit);
+        var givenRange = parse.GetValue(OutputLimits);
+        var actuatorLimit = givenRange is null ? givenLimit ?? baseCase.Check.ActuatorLimit : givenLimit;
+        var outputLimits = givenLimit is null ? givenRange ?? baseCase.Check.OutputLimits : givenRange;
+        var operatingPoint = parse.GetValue(OperatingPoint) ?? baseCase.Check.OperatingPoint;
         var referenceStep = parse.GetValue(ReferenceStep) ?? baseCase.Check.ReferenceStep;
         if (actuatorLimit is <= 0 || !(referenceStep > 0))
         {
             stderr.WriteLine("error: --actuator-limit and --reference-step must be positive.");
+            requirements = null;
+        }
+        else if (actuatorLimit is not null && outputLimits is not null)
+        {
+            stderr.WriteLine("error: --actuator-limit and --output-limits both given; keep one (a limit on |u|, or LOW,HIGH).");
+            requirements = null;
+        }
+        else if ((outputLimits ?? (actuatorLimit is { } l ? CommandRange.Symmetric(l) : null)) is { } absolute && !absolute.Contains(operatingPoint))
+        {
+            stderr.WriteLine($"error: --operating-point {operatingPoint.ToString(CultureInfo.InvariantCulture)} lies outside the output limits {absolute.Low.ToString(CultureInfo.InvariantCulture)} … {absolute.High.ToString(CultureInfo.InvariantCulture)}.");
+            requirements = null;
+        }
+        else if (!Core.Common.NumberRange.Contains(operatingPoint))
+        {
+            stderr.WriteLine("error: --operating-point is outside ±1e12 or below 1e-12 in magnitude.");
             requirements = null;
         }
 
@@ -158,7 +181,7 @@ internal sealed class LoopSettings
             Sign = parse.GetValue(PositiveFeedback) ? FeedbackSign.Positive : baseCase.Sign,
             PadeOrder = parse.GetValue(PadeOrder) ?? baseCase.PadeOrder,
             Requirements = requirements,
-            Check = baseCase.Check with { ActuatorLimit = actuatorLimit, ReferenceStep = referenceStep },
+            Check = baseCase.Check with { ActuatorLimit = actuatorLimit, OutputLimits = outputLimits, OperatingPoint = operatingPoint, ReferenceStep = referenceStep },
             Variations = variations,
         };
     }

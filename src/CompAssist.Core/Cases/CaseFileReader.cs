@@ -46,7 +46,9 @@ namespace CompAssist.Core.Cases;
 /// equal_factor = false             # lead-lag: gain fixed first by the error constant, one ratio for both
 /// [check]
 /// reference_step = 1.0             # size of the reference step for the actuator figures
-/// actuator_limit = 12.0            # largest |u| the actuator delivers
+/// actuator_limit = 12.0            # largest |u| the actuator delivers (or output_limits)
+/// output_limits = [0.0, 100.0]     # lowest and highest absolute command (a heater: 0 … 100 %)
+/// operating_point = 20.0           # the command u0 the plant model holds about (default 0)
 /// vary = ["gain=20%", "pole=-5:10%"]   # robustness corners
 /// </code>
 /// Unknown keys are errors (a misspelt key must not be silently ignored).
@@ -59,7 +61,7 @@ public static partial class CaseFileReader
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
         ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "rise_time", "phase_margin_deg", "gain_margin_db", "delay_margin", "sensitivity_peak", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
         ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio", "equal_factor"],
-        ["check"] = ["reference_step", "actuator_limit", "vary"],
+        ["check"] = ["reference_step", "actuator_limit", "output_limits", "operating_point", "vary"],
     };
 
     /// <summary>Reads a case file from disk.</summary>
@@ -266,6 +268,37 @@ public static partial class CaseFileReader
                 return Fail("[check] reference_step and actuator_limit must be positive", "Give positive numbers in the units of the reference and of the actuator command.");
             }
 
+            CommandRange? outputLimits = null;
+            if (check is not null && check.TryGetValue("output_limits", out var limitsValue))
+            {
+                if (limitsValue is TomlArray { Count: 2 } pair && ToDouble(pair[0]) is { } low && ToDouble(pair[1]) is { } high
+                    && NumberRange.Contains(low) && NumberRange.Contains(high) && low < high)
+                {
+                    outputLimits = CommandRange.Create(low, high);
+                }
+                else
+                {
+                    return Fail("[check] output_limits must be [low, high] with low < high", "Write for example output_limits = [0.0, 100.0] (absolute actuator units).");
+                }
+            }
+
+            if (outputLimits is not null && actuatorLimit is not null)
+            {
+                return Fail("[check] gives both actuator_limit and output_limits", "Keep one: actuator_limit for a limit on |u|, output_limits for [low, high].");
+            }
+
+            var operatingPoint = Number(check, "check", "operating_point") ?? 0.0;
+            if (!NumberRange.Contains(operatingPoint))
+            {
+                return Fail("[check] operating_point is outside ±1e12 or below 1e-12 in magnitude", "Give the operating-point command in actuator units.");
+            }
+
+            var absolute = outputLimits ?? (actuatorLimit is { } symmetric ? CommandRange.Symmetric(symmetric) : null);
+            if (absolute is not null && !absolute.Contains(operatingPoint))
+            {
+                return Fail($"[check] operating_point = {operatingPoint.ToString(CultureInfo.InvariantCulture)} lies outside the output limits {absolute.Low.ToString(CultureInfo.InvariantCulture)} … {absolute.High.ToString(CultureInfo.InvariantCulture)}", "The operating-point command must be one the actuator can deliver.");
+            }
+
             var padeOrder = Number(loop, "loop", "pade_order") ?? 3;
             if (Error is not null)
             {
@@ -313,7 +346,7 @@ public static partial class CaseFileReader
                     FilterRatio = Number(comp, "compensator", "filter_ratio"),
                     EqualFactor = comp is not null && comp.TryGetValue("equal_factor", out var ef) && ef is true,
                 },
-                Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit },
+                Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit, OutputLimits = outputLimits, OperatingPoint = operatingPoint },
                 Variations = variations.ToImmutable(),
             } is var result && Error is null ? (RequirementRanges.Check(result.Requirements) is { } bad ? Fail($"[requirements] {bad.Message}", bad.Hint) : result) : null;
         }

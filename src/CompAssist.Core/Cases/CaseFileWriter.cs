@@ -69,6 +69,15 @@ public static class CaseFileWriter
         sb.AppendLine("[check]");
         sb.AppendLine($"reference_step = {N(c.Check.ReferenceStep)}");
         Optional(sb, "actuator_limit", c.Check.ActuatorLimit);
+        if (c.Check.OutputLimits is { } limits)
+        {
+            sb.AppendLine($"output_limits = [{N(limits.Low)}, {N(limits.High)}]");
+        }
+
+        if (c.Check.OperatingPoint != 0)
+        {
+            sb.AppendLine($"operating_point = {N(c.Check.OperatingPoint)}");
+        }
         if (!c.Variations.IsEmpty)
         {
             sb.AppendLine($"vary = [{string.Join(", ", c.Variations.Select(v => Quote(v.Pole is { } pole ? $"pole={N(pole.Real)}:{N(v.Percent)}%" : $"gain={N(v.Percent)}%")))}]");

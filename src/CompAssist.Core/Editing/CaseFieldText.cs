@@ -39,7 +39,7 @@ public static class CaseFieldText
             CaseField.Zeta => N(r.Zeta),
             CaseField.NaturalFrequency => N(r.NaturalFrequency),
             CaseField.ErrorConstant => r.Constant is { } e ? $"{e.Symbol.ToLowerInvariant()}={N(e.Value)}" : string.Empty,
-            CaseField.ActuatorLimit => N(c.Check.ActuatorLimit),
+            CaseField.ActuatorLimit => c.Check.OutputLimits is { } range ? $"{N(range.Low)},{N(range.High)}" : N(c.Check.ActuatorLimit),
             CaseField.Variations => string.Join(", ", c.Variations.Select(VariationText)),
             CaseField.PlacementValue => N(PlacementValue(c.Lead)),
             CaseField.RiseTime => N(r.MaxRiseTime),
@@ -126,7 +126,7 @@ public static class CaseFieldText
             case CaseField.MaxSensitivity:
                 return Requirement(text, "a sensitivity peak above 1, e.g. 2 (6 dB)", v => r with { MaxSensitivityPeak = v }, c);
             case CaseField.ActuatorLimit:
-                return Number(text, x => x > 0, "an actuator limit above 0", v => c with { Check = c.Check with { ActuatorLimit = v } });
+                return ActuatorLimits(c, text);
             case CaseField.ErrorConstant:
                 return ErrorConstant(c, text);
             case CaseField.Variations:
@@ -244,6 +244,50 @@ public static class CaseFieldText
     // A requirement field: the number is read here, its range is the one rule of RequirementRanges.
     private static FieldEdit Requirement(string text, string what, Func<double?, Requirements> with, CaseFile c) =>
         Number(text, x => RequirementRanges.Check(with(x)) is null, what, v => c with { Requirements = with(v) });
+
+    // One number is a limit on |u|; LOW,HIGH are absolute output limits (either replaces the other). The operating
+    // point must stay within them.
+    private static FieldEdit ActuatorLimits(CaseFile c, string text)
+    {
+        const string what = "a limit on |u| above 0, or the output limits LOW,HIGH (0,100 for a heater)";
+        var comma = text.IndexOf(',', StringComparison.Ordinal);
+        FieldEdit edit;
+        if (comma < 0)
+        {
+            edit = Number(text, x => x > 0 && x <= NumberRange.Largest, what, v => c with { Check = c.Check with { ActuatorLimit = v, OutputLimits = null } });
+        }
+        else
+        {
+            var parts = new[] { text[..comma], text[(comma + 1)..] };
+            var values = new double[2];
+            for (var i = 0; i < 2; i++)
+            {
+                var offset = i == 0 ? 0 : comma + 1;
+                if (!double.TryParse(parts[i].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out values[i]) || !NumberRange.Contains(values[i]))
+                {
+                    var bad = FirstNonNumeric(parts[i]);
+                    return FieldEdit.Rejected(bad >= 0
+                        ? new ParseError($"'{parts[i][bad]}' does not belong in a number", $"Type {what}, with a dot for decimals.", text, offset + bad, 1)
+                        : new ParseError($"'{parts[i].Trim()}' is not a usable {(i == 0 ? "LOW" : "HIGH")}", $"Type {what}, both within ±1e12.", text, Math.Min(offset, text.Length - 1), Math.Max(1, parts[i].Length)));
+                }
+            }
+
+            var (l, h) = (values[0], values[1]);
+            if (!(l < h))
+            {
+                return FieldEdit.Rejected(Whole(text, "LOW must be below HIGH", $"Type {what}."));
+            }
+
+            edit = FieldEdit.Accepted(c with { Check = c.Check with { ActuatorLimit = null, OutputLimits = CommandRange.Create(l, h) } });
+        }
+
+        if (edit.IsSuccess && edit.Case.Check.AbsoluteLimits is { } limits && !limits.Contains(c.Check.OperatingPoint))
+        {
+            return FieldEdit.Rejected(Whole(text, $"the operating point {N(c.Check.OperatingPoint)} lies outside these limits", "Give limits that contain the operating-point command."));
+        }
+
+        return edit;
+    }
 
     private static FieldEdit Number(string text, Func<double, bool> valid, string what, Func<double?, CaseFile> apply)
     {

@@ -23,8 +23,11 @@ public sealed record HandoffOptions
     /// <summary>Fractional bits of the fixed-point signals (default: half the word).</summary>
     public int? SignalFractionBits { get; init; }
 
-    /// <summary>Anti-windup of the exported PID (PI, PD, PID designs).</summary>
-    public AntiWindup AntiWindup { get; init; } = AntiWindup.Clamping;
+    /// <summary>Anti-windup of the exported PID (PI, PD, PID designs); null when not chosen (clamping is used, and nothing is said when the design has no PID).</summary>
+    public AntiWindup? AntiWindup { get; init; }
+
+    /// <summary>True when the exported PID's derivative acts on the error (as the designed C(s) does) rather than on the measurement (the default: no kick on reference steps).</summary>
+    public bool DerivativeOnError { get; init; }
 
     /// <summary>C identifier for the exported controller.</summary>
     public string Name { get; init; } = "compassist_ctrl";

@@ -23,6 +23,7 @@ namespace CompAssist.Core.Export;
 /// <param name="SampleTimeNote">How the sample time was chosen.</param>
 /// <param name="Ladder">The sample times re-proved, and the recommendation they give.</param>
 /// <param name="Sampled">The sampled loop at the package's sample time against the requirements the continuous loop meets.</param>
+/// <param name="Pid">The PID as exported, run in closed loop (PI, PD and PID designs in double or float); null otherwise.</param>
 public sealed record HandoffPackage(
     ImmutableDictionary<string, string> Files,
     Discretizer.Result Discretization,
@@ -31,10 +32,14 @@ public sealed record HandoffPackage(
     QuantizationReport Quantization,
     string SampleTimeNote,
     SampleTimeLadder Ladder,
-    LadderRung Sampled)
+    LadderRung Sampled,
+    ExportedPidProof? Pid)
 {
     /// <summary>True when the sampled loop at the package's sample time meets every requirement the continuous loop meets.</summary>
     public bool SampledMeets => Sampled.Meets;
+
+    /// <summary>True unless an exported PID fails a requirement the continuous loop meets.</summary>
+    public bool PidMeets => Pid?.Meets ?? true;
 
     /// <summary>Builds the package for a proved design.</summary>
     public static Outcome<HandoffPackage> Build(DesignReport report, HandoffOptions options, string caseName)
@@ -145,31 +150,18 @@ public sealed record HandoffPackage(
             }
         }
 
-        var pidNote = string.Empty;
-        if (report.Design.Compensator.Pid is { } forms && options.Format.Kind == NumberFormatKind.Double)
-        {
-            var limit = report.Check.EffortFigures.Limit;
-            var pid = new PidImplementation(forms, t, -(limit ?? 1e9), limit ?? 1e9, options.AntiWindup);
-            var (pidHeader, pidSource) = PidCodeGenerator.Generate(options.Name + "_pid", pid, origin);
-            files.Add($"{options.Name}_pid.h", pidHeader);
-            files.Add($"{options.Name}_pid.c", pidSource);
-            // A reference large enough that the first command (Kp·r, derivative on the measurement) saturates.
-            var saturating = Math.Max(3 * report.Check.EffortFigures.ReferenceStep, limit is { } l && forms.Kp != 0 ? 2 * l / Math.Abs(forms.Kp) : 0);
-            files.Add($"{options.Name}_pid-vectors.csv", PidVectors(pid, loop, saturating));
-            pidNote = limit is null
-                ? "No actuator limit was given: the PID's output limits are ±1e9, so anti-windup never acts. Give the actuator limit."
-                : $"PID form: positional, derivative on the measurement, output limits ±{F(limit.Value)}, anti-windup {options.AntiWindup}.";
-        }
-
+        var pidPart = PidExport.Build(report, options, t, origin);
+        files.AddRange(pidPart.Files);
+        var pidNote = pidPart.Note;
         foreach (var extra in new[] { pidNote, fixedNote }.Where(x => x.Length > 0))
         {
             note += " " + extra;
         }
 
-        files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note, ladder));
+        files.Add($"{options.Name}.json", Json(options, discrete.Value, stored, proof, quantization, origin, note, ladder, pidPart.Proof));
         files.Add($"{options.Name}-vectors.csv", vectors);
-        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, ladder, caseName, [.. files.Keys, $"{options.Name}-report.md"]));
-        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note, ladder, sampled));
+        files.Add($"{options.Name}-report.md", Markdown(report, options, discrete.Value, stored, proof, quantization, origin, note, ladder, caseName, [.. files.Keys, $"{options.Name}-report.md"], pidPart.Proof, sampled));
+        return Outcome<HandoffPackage>.Success(new HandoffPackage(files.ToImmutable(), discrete.Value, stored, proof, quantization, note, ladder, sampled, pidPart.Proof));
     }
 
     private static string Vectors(ImmutableArray<Section> sections, NumberFormat format, double sampleTime)
@@ -230,29 +222,7 @@ public sealed record HandoffPackage(
         return sb.ToString();
     }
 
-    /// <summary>A saturating closed-loop run of the PID on the ZOH plant: reference, measurement and expected output per sample.</summary>
-    private static string PidVectors(PidImplementation pid, Loop loop, double reference)
-    {
-        var twin = new PidImplementation(pid.Forms, pid.SampleTime, pid.UMin, pid.UMax, pid.AntiWindup, pid.TrackingTime);
-        var plant = Discretizer.ZeroOrderHold(loop.Plant.WithoutDelay(), pid.SampleTime);
-        var sb = new StringBuilder();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist PID test vector (positional, derivative on the measurement, sample time {pid.SampleTime:R} s): a saturating closed-loop run on the ZOH plant. Feed reference and measurement to");
-        sb.AppendLine("# <name>_pid_step from <name>_pid_init, one row per sample; 'expected' is the command. Not a safety function.");
-        sb.AppendLine("k,reference,measurement,expected");
-        var u = new List<double>();
-        var y = 0.0;
-        for (var k = 0; k < 400; k++)
-        {
-            var command = twin.Step(reference, y);
-            sb.AppendLine(CultureInfo.InvariantCulture, $"{k},{reference:R},{y:R},{command:R}");
-            u.Add(command);
-            y = plant.Filter(u)[^1];
-        }
-
-        return sb.ToString();
-    }
-
-    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder)
+    private static string Json(HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder, ExportedPidProof? pid)
     {
         using var stream = new MemoryStream();
         using (var w = new Utf8JsonWriter(stream, new JsonWriterOptions { Indented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }))
@@ -309,6 +279,11 @@ public sealed record HandoffPackage(
             JsonNumbers.Write(w, "overshootPercent", proof.Metrics.OvershootPercent);
             JsonNumbers.Write(w, "settlingTime2", proof.Metrics.SettlingTime2Percent);
             w.WriteEndObject();
+            if (pid is not null)
+            {
+                PidExport.WriteJson(w, pid);
+            }
+
             w.WriteString("caution", Cautions.Text);
             w.WriteEndObject();
         }
@@ -316,7 +291,7 @@ public sealed record HandoffPackage(
         return Encoding.UTF8.GetString(stream.ToArray());
     }
 
-    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder, string caseName, IEnumerable<string> files)
+    private static string Markdown(DesignReport report, HandoffOptions options, Discretizer.Result discrete, ImmutableArray<Section> sections, SampledLoopProof proof, QuantizationReport quantization, string origin, string note, SampleTimeLadder ladder, string caseName, IEnumerable<string> files, ExportedPidProof? pid, LadderRung sampled)
     {
         var d = discrete.Discrete;
         var m = report.Check.Step;
@@ -370,6 +345,11 @@ public sealed record HandoffPackage(
         }
 
         sb.AppendLine();
+        if (pid is not null)
+        {
+            PidExport.AppendMarkdown(sb, report, pid, sampled);
+        }
+
         sb.AppendLine("## Coefficients");
         sb.AppendLine();
         sb.AppendLine("C(z) = (b0 + b1 z⁻¹ + …)/(1 + a1 z⁻¹ + …); u[k] = Σ bᵢ e[k−i] − Σᵢ≥₁ aᵢ u[k−i].");

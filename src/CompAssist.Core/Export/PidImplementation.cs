@@ -1,3 +1,4 @@
+using System.Numerics;
 using CompAssist.Core.Synthesis;
 
 namespace CompAssist.Core.Export;
@@ -5,38 +6,61 @@ namespace CompAssist.Core.Export;
 /// <summary>
 /// A sampled PID as firmware runs it (common practice, e.g. Åström and Murray, Feedback Systems, section 10.5):
 /// proportional on the error, integral by forward accumulation Ki·T·e, derivative on the measurement (no kick
-/// on reference steps) through the first-order filter Tf by backward difference, output clamped to
-/// [UMin, UMax], and anti-windup by clamping or back-calculation. Positional form; the incremental form computes
-/// the same output as the clamped sum of its increments. A non-finite reference or measurement (a failed sensor
-/// read) leaves every state as it was, returns the last output and sets <see cref="Fault"/>.
+/// on reference steps; or, when chosen, on the error, as the designed C(s) has it) through the first-order filter
+/// Tf by backward difference, the operating-point command u0
+/// added to the linear output, the sum clamped to [UMin, UMax] (absolute actuator units), and anti-windup by
+/// clamping or back-calculation. Positional form; the incremental form computes the same output as the clamped
+/// sum of its increments, starting from u0. A non-finite reference or measurement (a failed sensor read) leaves
+/// every state as it was, returns the last output (u0 before the first good sample) and sets <see cref="Fault"/>.
+/// With <see cref="SinglePrecision"/> every operation is done in IEEE single precision in the order the exported
+/// float C code does it, so the reference reproduces that code bit for bit.
 /// </summary>
 public sealed class PidImplementation
 {
     private double _integral;
     private double _derivative;
-    private double _previousMeasurement;
+    private double _previousSignal;
     private double _previousError;
     private double _previousOutput;
     private bool _started;
     private double _last;
 
     /// <summary>Creates the controller from the parallel gains of a design.</summary>
-    /// <exception cref="ArgumentException">T is not positive or the limits are inverted.</exception>
-    public PidImplementation(PidForms forms, double sampleTime, double uMin, double uMax, AntiWindup antiWindup, double? trackingTime = null, bool incremental = false)
+    /// <exception cref="ArgumentException">T is not positive, the limits are inverted or u0 lies outside them.</exception>
+    public PidImplementation(
+        PidForms forms,
+        double sampleTime,
+        double uMin,
+        double uMax,
+        AntiWindup antiWindup,
+        double? trackingTime = null,
+        bool incremental = false,
+        double operatingPoint = 0.0,
+        bool singlePrecision = false,
+        bool derivativeOnError = false)
     {
-        Incremental = incremental;
         ArgumentNullException.ThrowIfNull(forms);
         if (!(sampleTime > 0) || !(uMax > uMin))
         {
             throw new ArgumentException("The sample time must be positive and uMax > uMin.");
         }
 
+        if (!(operatingPoint >= uMin && operatingPoint <= uMax))
+        {
+            throw new ArgumentException("The operating-point command must lie within the output limits.", nameof(operatingPoint));
+        }
+
+        Incremental = incremental;
         Forms = forms;
         SampleTime = sampleTime;
         UMin = uMin;
         UMax = uMax;
         AntiWindup = antiWindup;
+        OperatingPoint = operatingPoint;
+        SinglePrecision = singlePrecision;
+        DerivativeOnError = derivativeOnError;
         TrackingTime = trackingTime ?? DefaultTrackingTime(forms, sampleTime);
+        Reset();
     }
 
     /// <summary>True for the incremental (velocity) form u = sat(u₋₁ + Δu), which cannot wind up.</summary>
@@ -48,17 +72,32 @@ public sealed class PidImplementation
     /// <summary>Sample time, seconds.</summary>
     public double SampleTime { get; }
 
-    /// <summary>Lower output limit.</summary>
+    /// <summary>Lower output limit, absolute actuator units.</summary>
     public double UMin { get; }
 
-    /// <summary>Upper output limit.</summary>
+    /// <summary>Upper output limit, absolute actuator units.</summary>
     public double UMax { get; }
+
+    /// <summary>The operating-point command u0 added to the linear output before clamping (absolute actuator units).</summary>
+    public double OperatingPoint { get; }
+
+    /// <summary>True when the controller computes in IEEE single precision (the float export).</summary>
+    public bool SinglePrecision { get; }
+
+    /// <summary>
+    /// True when the derivative acts on the error (the reference response of the designed C(s), with its kick on a
+    /// reference step, bounded by the filter: Kd/(Tf + T) per unit step); false for the measurement (the default).
+    /// </summary>
+    public bool DerivativeOnError { get; }
 
     /// <summary>The anti-windup scheme.</summary>
     public AntiWindup AntiWindup { get; }
 
     /// <summary>Back-calculation tracking time Tt, seconds (common practice: √(Ti·Td), or Ti/2 without derivative).</summary>
     public double TrackingTime { get; }
+
+    /// <summary>True once a non-finite reference or measurement was given (the exported code's fault flag).</summary>
+    public bool Fault { get; private set; }
 
     /// <summary>The tracking time the implementation uses when none is given.</summary>
     public static double DefaultTrackingTime(PidForms forms, double sampleTime)
@@ -70,8 +109,21 @@ public sealed class PidImplementation
         return Math.Max(tt, sampleTime);
     }
 
-    /// <summary>True once a non-finite reference or measurement was given (the exported code's fault flag).</summary>
-    public bool Fault { get; private set; }
+    /// <summary>A fresh controller with the same settings (states at rest).</summary>
+    public PidImplementation Twin() => new(Forms, SampleTime, UMin, UMax, AntiWindup, TrackingTime, Incremental, OperatingPoint, SinglePrecision, DerivativeOnError);
+
+    /// <summary>Back to rest, fault cleared (the exported reset).</summary>
+    public void Reset()
+    {
+        _integral = 0.0;
+        _derivative = 0.0;
+        _previousSignal = 0.0;
+        _previousError = 0.0;
+        _previousOutput = Round(OperatingPoint);
+        _last = Round(OperatingPoint);
+        _started = false;
+        Fault = false;
+    }
 
     /// <summary>One sample: reference r and measurement y in, clamped command out (the last one held on a non-finite input).</summary>
     public double Step(double reference, double measurement)
@@ -82,58 +134,72 @@ public sealed class PidImplementation
             return _last;
         }
 
-        return _last = Compute(reference, measurement);
+        return _last = SinglePrecision ? Compute<float>(reference, measurement) : Compute<double>(reference, measurement);
     }
 
-    private double Compute(double reference, double measurement)
+    private double Round(double x) => SinglePrecision ? (float)x : x;
+
+    // Every operation in T, in the order of the generated C; the states are kept as doubles (exact for floats).
+    private double Compute<T>(double referenceValue, double measurementValue)
+        where T : IFloatingPointIeee754<T>
     {
+        static T V(double x) => T.CreateTruncating(x);
+        static double D(T x) => double.CreateTruncating(x);
+        var f = Forms;
+        T kp = V(f.Kp), ki = V(f.Ki), kd = V(f.Kd), tf = V(f.Tf), t = V(SampleTime), low = V(UMin), high = V(UMax);
+        var reference = V(referenceValue);
+        var measurement = V(measurementValue);
+        static T Clamp(T u, T low, T high) => u < low ? low : (u > high ? high : u);
+        var error = reference - measurement;
+        var signal = DerivativeOnError ? error : -measurement;
         if (!_started)
         {
-            _previousMeasurement = measurement;
+            // The signal is taken as constant before the first sample: no derivative spike at power-on.
+            _previousSignal = D(signal);
             _previousError = 0.0;
             _started = true;
         }
 
-        var f = Forms;
-        var t = SampleTime;
-        var error = reference - measurement;
-        var p = f.Kp * error;
-
-        // Filtered derivative of −y by backward difference: D = (Tf·D − Kd·(y − y₋₁))/(Tf + T).
-        var previousDerivative = _derivative;
-        _derivative = ((f.Tf * _derivative) - (f.Kd * (measurement - _previousMeasurement))) / (f.Tf + t);
-        _previousMeasurement = measurement;
+        // Filtered derivative of the signal (−y, or e) by backward difference: D = (Tf·D + Kd·(v − v₋₁))/(Tf + T).
+        var previousDerivative = V(_derivative);
+        var derivative = ((tf * previousDerivative) + (kd * (signal - V(_previousSignal)))) / (tf + t);
+        _derivative = D(derivative);
+        _previousSignal = D(signal);
         if (Incremental)
         {
             // The integral of the positional form accumulates after the output (forward), so its increment here is
             // Ki·T·e[k−1]: both forms give the same output while unsaturated.
-            var delta = (f.Kp * (error - _previousError)) + (f.Ki * t * _previousError) + (_derivative - previousDerivative);
-            _previousError = error;
-            _previousOutput = Math.Clamp(_previousOutput + delta, UMin, UMax);
-            return _previousOutput;
+            var previousError = V(_previousError);
+            var delta = (kp * (error - previousError)) + (ki * t * previousError) + (derivative - previousDerivative);
+            _previousError = D(error);
+            var output = Clamp(V(_previousOutput) + delta, low, high);
+            _previousOutput = D(output);
+            return D(output);
         }
 
-        var unclamped = p + _integral + _derivative;
-        var u = Math.Clamp(unclamped, UMin, UMax);
-        var increment = f.Ki * t * error;
+        var integral = V(_integral);
+        var unclamped = V(OperatingPoint) + (kp * error) + integral + derivative;
+        var u = Clamp(unclamped, low, high);
+        var increment = ki * t * error;
         switch (AntiWindup)
         {
             case AntiWindup.Clamping:
-                var pushingFurther = (unclamped > UMax && increment > 0) || (unclamped < UMin && increment < 0);
+                var pushingFurther = (unclamped > high && increment > T.Zero) || (unclamped < low && increment < T.Zero);
                 if (!pushingFurther)
                 {
-                    _integral += increment;
+                    integral += increment;
                 }
 
                 break;
             case AntiWindup.BackCalculation:
-                _integral += increment + (t / TrackingTime * (u - unclamped));
+                integral += increment + (t / V(TrackingTime) * (u - unclamped));
                 break;
             default:
-                _integral += increment;
+                integral += increment;
                 break;
         }
 
-        return u;
+        _integral = D(integral);
+        return D(u);
     }
 }

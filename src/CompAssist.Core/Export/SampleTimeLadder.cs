@@ -95,38 +95,7 @@ public sealed record SampleTimeLadder(double Bandwidth, double Start, ImmutableA
         var stored = Quantizer.Quantize(d, SectionSplitter.Split(d), options.Format).Quantized;
         var proof = SampledLoop.Prove(loop, stored, options.ComputationDelay);
         var pm = proof.Stable ? PhaseMargin(loop, stored, proof.DelaySamples) : double.NaN;
-        var m = proof.Metrics;
-        var checks = ImmutableArray.CreateBuilder<RequirementCheck>();
-        foreach (var row in continuous.Checks.Where(c => c.Passes == true))
-        {
-            double? measured = row.Name switch
-            {
-                RequirementChecks.Overshoot => m.OvershootPercent,
-                RequirementChecks.Settling2 => m.SettlingTime2Percent,
-                RequirementChecks.Settling5 => m.SettlingTime5Percent,
-                RequirementChecks.PeakTime => m.PeakTime,
-                RequirementChecks.RiseTime => m.RiseTime,
-                RequirementChecks.PhaseMargin => pm,
-                _ => null,
-            };
-            if (measured is { } value)
-            {
-                checks.Add(row with { Measured = value, Predicted = null, Valid = proof.Stable && !double.IsNaN(value) });
-            }
-        }
-
-        if (checks.Count == 0 && continuous.Stable)
-        {
-            // No step requirement was given: hold the sampled step close to the continuous one instead.
-            var c = continuous.Step;
-            checks.Add(new RequirementCheck("overshoot % (continuous + 5)", m.OvershootPercent, c.OvershootPercent + 5, null, Valid: proof.Stable));
-            if (double.IsFinite(c.SettlingTime2Percent))
-            {
-                checks.Add(new RequirementCheck("settling time 2 % (1.5 × continuous)", m.SettlingTime2Percent, 1.5 * c.SettlingTime2Percent, null, Valid: proof.Stable));
-            }
-        }
-
-        return new LadderRung(sampleTime, proof, pm, checks.ToImmutable());
+        return new LadderRung(sampleTime, proof, pm, SampledChecks.Of(continuous, proof.Metrics, pm, proof.Stable));
     }
 
     /// <summary>The largest 1, 2 or 5 × 10ⁿ not above t.</summary>

@@ -107,7 +107,11 @@ public static class LoopCheck
 
         if (effortFigures.Saturates)
         {
-            warnings.Add($"The actuator command peaks at {F(effortFigures.Peak)} for a step of {F(options.ReferenceStep)}, beyond the limit {F(options.ActuatorLimit!.Value)}: the actuator saturates and every linear prediction here is void. Reduce the step, slow the target, or accept saturation with anti-windup.");
+            var room = effortFigures.Room!;
+            var beyond = room.IsSymmetric
+                ? $"peaks at {F(effortFigures.Peak)} for a step of {F(options.ReferenceStep)}, beyond the limit {F(room.High)}"
+                : $"runs from {F(effortFigures.Lowest)} to {F(effortFigures.Highest)} about the operating point {F(options.OperatingPoint)} for a step of {F(options.ReferenceStep)}, beyond the room {F(room.Low)} … {F(room.High)} the output limits leave";
+            warnings.Add($"The actuator command {beyond}: the actuator saturates and every linear prediction here is void. Reduce the step, slow the target, or accept saturation with anti-windup.");
         }
 
         if (transfers.Effort is null)
@@ -242,29 +246,32 @@ public static class LoopCheck
 
     private static EffortFigures SampledEffort(SampledResponse u, double initial, CheckOptions options)
     {
-        var (peak, at) = (0.0, 0.0);
-        for (var k = 0; k < u.Values.Length; k++)
+        var (high, highTime, low, lowTime) = (u.Values[0], 0.0, u.Values[0], 0.0);
+        for (var k = 1; k < u.Values.Length; k++)
         {
-            if (Math.Abs(u.Values[k]) > peak)
+            if (u.Values[k] > high)
             {
-                (peak, at) = (Math.Abs(u.Values[k]), u.TimeAt(k));
+                (high, highTime) = (u.Values[k], u.TimeAt(k));
+            }
+
+            if (u.Values[k] < low)
+            {
+                (low, lowTime) = (u.Values[k], u.TimeAt(k));
             }
         }
 
-        var scale = options.ReferenceStep;
-        return new EffortFigures(initial * scale, peak * Math.Abs(scale), at, scale, options.ActuatorLimit);
+        return EffortFigures.Of(initial, high, highTime, low, lowTime, options);
     }
 
     private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options)
     {
         if (u is null)
         {
-            return new EffortFigures(double.PositiveInfinity, double.PositiveInfinity, 0.0, options.ReferenceStep, options.ActuatorLimit);
+            return EffortFigures.Impulse(options);
         }
 
-        var (peak, time) = StepAnalysis.PeakMagnitude(u, poles, horizon);
-        var scale = options.ReferenceStep;
-        return new EffortFigures(u.D * scale, peak * Math.Abs(scale), time, scale, options.ActuatorLimit);
+        var (high, highTime, low, lowTime) = StepAnalysis.Extremes(u, poles, horizon);
+        return EffortFigures.Of(u.D, high, highTime, low, lowTime, options);
     }
 
     private static string F(double x) => TransferFunctionFormatter.Number(x, 4);

@@ -11,7 +11,7 @@ public sealed record RequirementCheck(string Name, double Measured, double? Requ
 {
     /// <summary>Pass/fail against the requirement; null when none was given. Never true for an invalid (unstable) figure.</summary>
     public bool? Passes => Required is { } r
-        ? Valid && (Bound == RequirementBound.AtMost ? Measured <= r * (1 + 1e-9) : Measured >= r * (1 - 1e-9))
+        ? Valid && (Bound == RequirementBound.AtMost ? Measured <= r + (1e-9 * Math.Abs(r)) : Measured >= r - (1e-9 * Math.Abs(r)))
         : null;
 
     /// <summary>The bound as people write it, e.g. "≤ 10" or "≥ 4".</summary>

@@ -40,6 +40,12 @@ public static class RequirementChecks
     /// <summary>Row name of the actuator peak.</summary>
     public const string ActuatorPeak = "peak |u| (actuator)";
 
+    /// <summary>Row name of the highest command about the operating point (asymmetric output limits).</summary>
+    public const string CommandHighest = "highest u − u0 (actuator)";
+
+    /// <summary>Row name of the lowest command about the operating point (asymmetric output limits).</summary>
+    public const string CommandLowest = "lowest u − u0 (actuator)";
+
     /// <summary>The rows for a measured step (and, where known, error constants and effort).</summary>
     public static ImmutableArray<RequirementCheck> Of(
         StepMetrics metrics,
@@ -75,9 +81,14 @@ public static class RequirementChecks
             rows.Add(new RequirementCheck($"error constant {needed.Symbol}", measured, needed.Value, null, RequirementBound.AtLeast, stable));
         }
 
-        if (effort?.Limit is { } limit)
+        if (effort?.Room is { IsSymmetric: true } symmetric)
         {
-            rows.Add(new RequirementCheck(ActuatorPeak, effort.Peak, limit, null, Valid: stable));
+            rows.Add(new RequirementCheck(ActuatorPeak, effort.Peak, symmetric.High, null, Valid: stable));
+        }
+        else if (effort?.Room is { } room)
+        {
+            rows.Add(new RequirementCheck(CommandHighest, effort.Highest, room.High, null, Valid: stable));
+            rows.Add(new RequirementCheck(CommandLowest, effort.Lowest, room.Low, null, RequirementBound.AtLeast, stable));
         }
 
         if (requirements is { NeedsMargins: true })

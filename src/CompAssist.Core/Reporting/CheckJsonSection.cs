@@ -124,6 +124,14 @@ public static class CheckJsonSection
             n(w, "limit", limit);
         }
 
+        if (e.Room is { IsSymmetric: false } room)
+        {
+            n(w, "highest", e.Highest);
+            n(w, "lowest", e.Lowest);
+            n(w, "roomLow", room.Low);
+            n(w, "roomHigh", room.High);
+        }
+
         w.WriteBoolean("saturates", e.Saturates);
         w.WriteEndObject();
 

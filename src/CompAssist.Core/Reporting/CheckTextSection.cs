@@ -57,7 +57,14 @@ public static class CheckTextSection
         sb.AppendLine();
         var e = check.EffortFigures;
         sb.AppendLine($"Actuator command for a reference step of {N(e.ReferenceStep, 4)}");
-        sb.AppendLine($"  u(0+) = {N(e.Initial, 5)}, peak |u| = {N(e.Peak, 5)} at {N(e.PeakTime, 3)} s{(e.Limit is { } l ? $", limit {N(l, 4)}: {(e.Saturates ? "SATURATES" : "within")}" : string.Empty)}");
+        var verdict = e.Saturates ? "SATURATES" : "within";
+        var limits = e.Room switch
+        {
+            null => string.Empty,
+            { IsSymmetric: true } r => $", limit {N(r.High, 4)}: {verdict}",
+            var r => $"; u − u0 from {N(e.Lowest, 5)} to {N(e.Highest, 5)}, room {N(r.Low, 4)} … {N(r.High, 4)}: {verdict}",
+        };
+        sb.AppendLine($"  u(0+) = {N(e.Initial, 5)}, peak |u| = {N(e.Peak, 5)} at {N(e.PeakTime, 3)} s{limits}");
         sb.AppendLine();
 
         if (robustness is not null)

@@ -19,9 +19,15 @@ public static class HandoffSummary
         sb.AppendLine($"method         {DiscreteReport.MethodName(options.Method)}");
         sb.AppendLine($"number format  {options.Format}");
         sb.AppendLine($"delay          {(options.ComputationDelay ? "one sample of computation delay in the sampled proof" : "none assumed (output at the sampling instant)")}");
-        sb.AppendLine($"anti-windup    {AntiWindupName(options.AntiWindup)} (used by the PID export)");
+        sb.AppendLine($"anti-windup    {PidExport.Name(options.AntiWindup ?? AntiWindup.Clamping)} (used by the PID export)");
+        sb.AppendLine($"derivative     on the {(options.DerivativeOnError ? "error, as designed (kicks on a reference step)" : "measurement (no kick on reference steps)")} (used by the PID export)");
         sb.AppendLine($"sections       {package.Sections.Length} (cascaded, in the order they are applied)");
         TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples switch { 0 => string.Empty, 1 => ", 1 sample of delay", var d => $", {d} samples of delay" })})", string.Empty, "               ");
+        if (package.Pid is { } pid)
+        {
+            TextWrap.AppendTo(sb, $"PID exported   {(pid.Meets ? "meets" : "FAILS")}: overshoot {N(pid.Reference.OvershootPercent, 4)} %, 2 % settling {N(pid.Reference.SettlingTime2Percent, 4)} s, u − u0 {N(pid.CommandLowest, 4)} … {N(pid.CommandHighest, 4)}, {N(100 * pid.SaturatedFraction, 3)} % on a limit{(pid.Meets ? string.Empty : $" — {ExportedPidProof.Describe(pid)}")}", string.Empty, "               ");
+        }
+
         sb.AppendLine("ladder         each value re-proved sampled (▶ this package):");
         LadderTable.AppendText(sb, package.Ladder, package.Sampled.SampleTime, "  ");
         var warnings = package.Quantization.Warnings.Concat(proof.Warnings).ToList();
@@ -35,13 +41,6 @@ public static class HandoffSummary
         sb.Append(DiscreteReport.RenderText(continuous, package.Discretization));
         return sb.ToString();
     }
-
-    private static string AntiWindupName(AntiWindup scheme) => scheme switch
-    {
-        AntiWindup.Clamping => "clamping",
-        AntiWindup.BackCalculation => "back-calculation",
-        _ => "none",
-    };
 
     private static string N(double x, int digits) => TransferFunctionFormatter.Number(x, digits);
 }

@@ -41,7 +41,7 @@ public static class ProofDigest
         }
 
         var e = check.EffortFigures;
-        if (e.Limit is null)
+        if (e.Room is null)
         {
             items.Add(new DigestItem($"|u| peak {N(e.Peak, 3)}", null));
         }
@@ -72,6 +72,8 @@ public static class ProofDigest
         _ when name.StartsWith("settling time 5", StringComparison.Ordinal) => "ts5%",
         _ when name.StartsWith("peak time", StringComparison.Ordinal) => "tp",
         RequirementChecks.ActuatorPeak => "|u|",
+        RequirementChecks.CommandHighest => "u max",
+        RequirementChecks.CommandLowest => "u min",
         _ when name.StartsWith("error constant ", StringComparison.Ordinal) => name["error constant ".Length..],
         _ => name,
     };

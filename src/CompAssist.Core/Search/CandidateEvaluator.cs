@@ -17,7 +17,7 @@ namespace CompAssist.Core.Search;
 /// </summary>
 internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, CompensatorKind kind, CheckOptions check, IReadOnlyList<PlantVariation> variations, SearchOptions options)
 {
-    private readonly bool needsEffort = check.ActuatorLimit is not null || options.Objective == SearchObjective.ActuatorPeak;
+    private readonly bool needsEffort = check.CommandRoom is not null || options.Objective == SearchObjective.ActuatorPeak;
     private readonly bool needsMargins = requirements.NeedsMargins || options.Objective == SearchObjective.SensitivityPeak;
 
     /// <summary>The candidate for these choices, or null when the kind cannot be synthesized there.</summary>
@@ -61,7 +61,7 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
         {
             effort = transfers.Effort is { } u
                 ? Effort(CascadeRealization.Of(u), roots, horizon)
-                : new EffortFigures(double.PositiveInfinity, double.PositiveInfinity, 0.0, check.ReferenceStep, check.ActuatorLimit);
+                : EffortFigures.Impulse(check);
         }
 
         var margins = needsMargins ? MarginAnalyzer.Analyze(loop, c) : null;
@@ -97,8 +97,8 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
 
     private EffortFigures Effort(StateSpace u, ImmutableArray<Complex> roots, double horizon)
     {
-        var (peak, time) = StepAnalysis.PeakMagnitude(u, roots, horizon);
-        return new EffortFigures(u.D * check.ReferenceStep, peak * Math.Abs(check.ReferenceStep), time, check.ReferenceStep, check.ActuatorLimit);
+        var (high, highTime, low, lowTime) = StepAnalysis.Extremes(u, roots, horizon);
+        return EffortFigures.Of(u.D, high, highTime, low, lowTime, check);
     }
 
     /// <summary>How far a row falls short of its bound tightened by the margin, relative to the bound (0 when it holds).</summary>

@@ -68,9 +68,10 @@ internal static class PhysicalLimits
             notes.Add($"the loop has {integrators} integrators: with two or more the error of a unit-feedback step integrates to zero, so the step must overshoot (common practice); a reference prefilter, not the loop, removes that overshoot");
         }
 
-        if (check.ActuatorLimit is { } limit)
+        if (check.CommandRoom is { } room)
         {
-            notes.Add($"the actuator limit {F(limit)} caps how fast the output can move: a faster target needs a larger command");
+            var limits = room.IsSymmetric ? $"the actuator limit {F(room.High)}" : $"the room {F(room.Low)} … {F(room.High)} the output limits leave about the operating point";
+            notes.Add($"{limits} caps how fast the output can move: a faster target needs a larger command");
         }
 
         notes.Add("what to change: relax the requirement that fails most, try another compensator kind (lead-lag or PID for more phase, lag or PI for steady state), or a stronger actuator");

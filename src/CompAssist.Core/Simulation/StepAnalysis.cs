@@ -52,10 +52,17 @@ public static class StepAnalysis
     /// <summary>The largest |y| over the horizon and when it occurs (the actuator's peak command, say), exact.</summary>
     public static (double Peak, double Time) PeakMagnitude(StateSpace system, IReadOnlyCollection<Complex> poles, double horizon)
     {
+        var (high, tHigh, low, tLow) = Extremes(system, poles, horizon);
+        return high >= -low ? (Math.Abs(high), tHigh) : (Math.Abs(low), tLow);
+    }
+
+    /// <summary>The largest and the smallest y over the horizon and when they occur, exact (y(0) included).</summary>
+    public static (double High, double HighTime, double Low, double LowTime) Extremes(StateSpace system, IReadOnlyCollection<Complex> poles, double horizon)
+    {
         var tr = StepTrajectory.Simulate(system, poles, horizon);
         var (high, tHigh) = Extreme(tr, 1.0);
         var (low, tLow) = Extreme(tr, -1.0);
-        return high >= -low ? (Math.Abs(high), tHigh) : (Math.Abs(low), tLow);
+        return (high, tHigh, low, tLow);
     }
 
     internal static StepMetrics Measure(StepTrajectory tr, double finalValue)

@@ -57,6 +57,8 @@ public class HandoffCommandTests
             program.AppendLine("    return s.fault == 1 ? 0 : 99; /* the last run fed nan and inf: the fault flag must be set */\n}");
             File.WriteAllText(Path.Combine(folder, "main.c"), program.ToString());
             var compiler = new[] { "/usr/bin/cc", "/usr/bin/gcc", "/usr/bin/clang" }.First(File.Exists);
+            var strict = Run(compiler, "-std=c99 -Wall -Wextra -Wpedantic -Wunused-macros -Wconversion -Werror -c -o belt_axis.o belt_axis.c", folder);
+            Assert.True(strict.Code == 0, strict.Error);
             var compile = Run(compiler, "-std=c99 -Wall -Wextra -Werror -pedantic -o test main.c belt_axis.c", folder);
             Assert.True(compile.Code == 0, compile.Error);
             var ran = Run(Path.Combine(folder, "test"), string.Empty, folder);

@@ -51,6 +51,19 @@ public class PidImplementationTests
     }
 
     [Fact]
+    public void Step_DerivativeOnError_KicksByTheFilteredDerivativeGain()
+    {
+        // Running at rest, then a unit reference step: on the error the first output is Kp + Kd/(Tf + T) (the
+        // backward-difference derivative through the filter), on the measurement Kp alone.
+        var onError = new PidImplementation(Gains, 0.01, -100, 100, AntiWindup.Clamping, derivativeOnError: true);
+        var onMeasurement = new PidImplementation(Gains, 0.01, -100, 100, AntiWindup.Clamping);
+        onError.Step(0.0, 0.0);
+        onMeasurement.Step(0.0, 0.0);
+        Tolerance.Close(Gains.Kp + (Gains.Kd / (Gains.Tf + 0.01)), onError.Step(1.0, 0.0), 1e-14);
+        Tolerance.Close(Gains.Kp, onMeasurement.Step(1.0, 0.0), 1e-15);
+    }
+
+    [Fact]
     public void Incremental_UnsaturatedMatchesPositional()
     {
         var positional = new PidImplementation(Gains, 0.01, -1e9, 1e9, AntiWindup.None);
@@ -67,22 +80,33 @@ public class PidImplementationTests
     }
 
     [Theory]
-    [InlineData(AntiWindup.Clamping, false)]
-    [InlineData(AntiWindup.BackCalculation, false)]
-    [InlineData(AntiWindup.None, true)]
-    public void Generate_CompilesAndMatchesReferenceOnASaturatingRun(AntiWindup scheme, bool incremental)
+    [InlineData(AntiWindup.Clamping, false, false, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.BackCalculation, false, false, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.None, true, false, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.Clamping, false, true, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.BackCalculation, false, true, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.None, true, true, 0.0, -1.0, 1.0, false)]
+    [InlineData(AntiWindup.Clamping, false, false, 0.35, 0.0, 1.0, false)]
+    [InlineData(AntiWindup.BackCalculation, false, true, 0.35, 0.0, 1.0, false)]
+    [InlineData(AntiWindup.None, true, true, 0.35, 0.0, 1.0, false)]
+    [InlineData(AntiWindup.Clamping, false, false, 0.0, -1.0, 1.0, true)]
+    [InlineData(AntiWindup.BackCalculation, false, true, 0.35, 0.0, 1.0, true)]
+    [InlineData(AntiWindup.None, true, true, 0.0, -1.0, 1.0, true)]
+    public void Generate_CompilesAndMatchesReferenceBitForBitOnASaturatingRun(AntiWindup scheme, bool incremental, bool single, double u0, double low, double high, bool onError)
     {
-        var reference = new PidImplementation(Gains, 0.01, -1.0, 1.0, scheme, incremental: incremental);
+        var reference = new PidImplementation(Gains, 0.01, low, high, scheme, incremental: incremental, operatingPoint: u0, singlePrecision: single, derivativeOnError: onError);
         var random = new Random(11);
         // A failed sensor read (NaN) at k = 150 and an infinite reference at k = 300: the output is held and the
         // fault flag set, and the loop goes on from the states as they were.
-        var rows = Enumerable.Range(0, 400).Select(k => (R: k == 300 ? double.PositiveInfinity : k < 200 ? 5.0 : -3.0, Y: k == 150 ? double.NaN : (0.01 * k) + ((random.NextDouble() - 0.5) * 0.05))).ToList();
+        var rows = Enumerable.Range(0, 400).Select(k => (R: k == 300 ? double.PositiveInfinity : k < 200 ? 5.0 : -3.0, Y: k == 150 ? double.NaN : (k < 200 ? 5.0 : -3.0) - (0.8 * Math.Sin(0.05 * k)) + ((random.NextDouble() - 0.5) * 0.05))).ToList();
         var expected = rows.Select(row => reference.Step(row.R, row.Y)).ToList();
-        Assert.Contains(1.0, expected);
-        Assert.Contains(-1.0, expected);
+        Assert.Contains(high, expected);
+        Assert.Contains(low, expected);
         Assert.Equal(expected[149], expected[150]);
         Assert.Equal(expected[299], expected[300]);
         Assert.True(reference.Fault);
+        Assert.Contains(expected, v => v > low && v < high);
+        Assert.Equal(single, expected.All(v => (float)v == v));
 
         var directory = Directory.CreateTempSubdirectory("compassist-pid-").FullName;
         try
@@ -91,7 +115,7 @@ public class PidImplementationTests
             File.WriteAllText(Path.Combine(directory, "pid_ctrl.h"), header);
             File.WriteAllText(Path.Combine(directory, "pid_ctrl.c"), source);
             static string C(double v) => double.IsNaN(v) ? "NAN" : double.IsPositiveInfinity(v) ? "INFINITY" : v.ToString("R", CultureInfo.InvariantCulture);
-            var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", pid_ctrl_step(&s, {C(r.R)}, {C(r.Y)}));"));
+            var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", (double)pid_ctrl_step(&s, {C(r.R)}, {C(r.Y)}));"));
             File.WriteAllText(Path.Combine(directory, "main.c"), "#include <math.h>\n#include <stdio.h>\n#include \"pid_ctrl.h\"\nint main(void)\n{\n    pid_ctrl_state s;\n    pid_ctrl_init(&s);\n" + calls + "\n    printf(\"%d\\n\", s.fault);\n    return 0;\n}\n");
             CCompiler.Compile(directory, "-O2", "main.c pid_ctrl.c");
             var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output
@@ -101,7 +125,7 @@ public class PidImplementationTests
             Assert.Equal(expected.Count, outputs.Count);
             for (var k = 0; k < expected.Count; k++)
             {
-                Tolerance.Close(expected[k], outputs[k], 1e-12, 1e-15, $"k={k}");
+                Assert.True(expected[k] == outputs[k], $"k={k}: the reference gives {expected[k]:R}, the compiled code {outputs[k]:R}");
             }
         }
         finally

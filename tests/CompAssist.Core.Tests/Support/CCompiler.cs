@@ -26,9 +26,22 @@ internal static class CCompiler
         return (process.ExitCode, output.Result, error.Result);
     }
 
-    /// <summary>Compiles with -std=c99 -Wall -Wextra -Werror -pedantic plus <paramref name="flags"/>; asserts success.</summary>
+    /// <summary>The warning set every generated C file must pass (the hand-off's promise to firmware).</summary>
+    public const string StrictFlags = "-std=c99 -Wall -Wextra -Wpedantic -Wunused-macros -Wconversion -Werror";
+
+    /// <summary>
+    /// Compiles every generated source (each .c file in <paramref name="sources"/> except the test's main.c) alone under
+    /// <see cref="StrictFlags"/>, then links the test program with -std=c99 -Wall -Wextra -Werror -pedantic plus
+    /// <paramref name="flags"/>; asserts success.
+    /// </summary>
     public static void Compile(string directory, string flags, string sources)
     {
+        foreach (var generated in sources.Split(' ', StringSplitOptions.RemoveEmptyEntries).Where(s => s.EndsWith(".c", StringComparison.Ordinal) && s != "main.c"))
+        {
+            var (strictCode, _, strictError) = Run(Path(), $"{StrictFlags} {flags} -c -o {generated}.o {generated}", directory);
+            Assert.True(strictCode == 0, $"{generated} under {StrictFlags}:\n{strictError}");
+        }
+
         var (code, _, error) = Run(Path(), $"-std=c99 -Wall -Wextra -Werror -pedantic {flags} -o test {sources}", directory);
         Assert.True(code == 0, error);
     }
