@@ -28,10 +28,21 @@ public sealed record EffortFigures(double Initial, double Peak, double PeakTime,
         ? (double.IsNaN(Highest) || double.IsNaN(Lowest) ? Peak > Math.Min(r.High, -r.Low) : Highest > r.High || Lowest < r.Low)
         : Limit is { } l && Peak > l;
 
-    /// <summary>The figures of a unit-step command response with extremes <paramref name="high"/> and <paramref name="low"/>, scaled to the options' step.</summary>
-    public static EffortFigures Of(double initial, double high, double highTime, double low, double lowTime, CheckOptions options)
+    /// <summary>
+    /// The figures of a unit-step command response with extremes <paramref name="high"/> and <paramref name="low"/>
+    /// over the simulated horizon, scaled to the options' step. A stable loop's final command
+    /// <paramref name="finalCommand"/> (NaN when unknown) joins the extremes: a command still creeping toward it at the
+    /// horizon reaches it in the end.
+    /// </summary>
+    public static EffortFigures Of(double initial, double high, double highTime, double low, double lowTime, CheckOptions options, double finalCommand = double.NaN)
     {
         ArgumentNullException.ThrowIfNull(options);
+        if (double.IsFinite(finalCommand))
+        {
+            (high, highTime) = finalCommand > high ? (finalCommand, double.PositiveInfinity) : (high, highTime);
+            (low, lowTime) = finalCommand < low ? (finalCommand, double.PositiveInfinity) : (low, lowTime);
+        }
+
         var scale = options.ReferenceStep;
         var (highest, lowest) = scale >= 0 ? (high * scale, low * scale) : (low * scale, high * scale);
         var (peak, at) = Math.Abs(high) >= Math.Abs(low) ? (Math.Abs(high), highTime) : (Math.Abs(low), lowTime);

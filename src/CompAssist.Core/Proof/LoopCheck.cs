@@ -63,9 +63,10 @@ public static class LoopCheck
         var rampError = stable ? RampError(transfers.Output, stepError) : double.NaN;
         var constants = ErrorConstants.Of(loop, compensator);
         var margins = stable ? MarginAnalyzer.Analyze(loop, compensator) : null;
+        var finalCommand = stable && transfers.Effort is { } effortTransfer ? effortTransfer.DcGain : double.NaN;
         var effortFigures = delayed?.Effort is { } exactEffort && effortSystem is not null
-            ? SampledEffort(exactEffort, effortSystem.D, options)
-            : Effort(effortSystem, closedLoopPoles, horizon, options);
+            ? SampledEffort(exactEffort, effortSystem.D, options, finalCommand)
+            : Effort(effortSystem, closedLoopPoles, horizon, options, finalCommand);
 
         var warnings = ImmutableArray.CreateBuilder<string>();
         if (judgement.Note is { } note)
@@ -244,7 +245,7 @@ public static class LoopCheck
         return Math.Abs(error) <= RoundingLevel * Math.Abs(t0) * size ? 0.0 : error;
     }
 
-    private static EffortFigures SampledEffort(SampledResponse u, double initial, CheckOptions options)
+    private static EffortFigures SampledEffort(SampledResponse u, double initial, CheckOptions options, double finalCommand)
     {
         var (high, highTime, low, lowTime) = (u.Values[0], 0.0, u.Values[0], 0.0);
         for (var k = 1; k < u.Values.Length; k++)
@@ -260,10 +261,10 @@ public static class LoopCheck
             }
         }
 
-        return EffortFigures.Of(initial, high, highTime, low, lowTime, options);
+        return EffortFigures.Of(initial, high, highTime, low, lowTime, options, finalCommand);
     }
 
-    private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options)
+    private static EffortFigures Effort(StateSpace? u, ImmutableArray<Complex> poles, double horizon, CheckOptions options, double finalCommand)
     {
         if (u is null)
         {
@@ -271,7 +272,7 @@ public static class LoopCheck
         }
 
         var (high, highTime, low, lowTime) = StepAnalysis.Extremes(u, poles, horizon);
-        return EffortFigures.Of(u.D, high, highTime, low, lowTime, options);
+        return EffortFigures.Of(u.D, high, highTime, low, lowTime, options, finalCommand);
     }
 
     private static string F(double x) => TransferFunctionFormatter.Number(x, 4);

@@ -64,7 +64,7 @@ public static class CheckTextSection
             { IsSymmetric: true } r => $", limit {N(r.High, 4)}: {verdict}",
             var r => $"; u − u0 from {N(e.Lowest, 5)} to {N(e.Highest, 5)}, room {N(r.Low, 4)} … {N(r.High, 4)}: {verdict}",
         };
-        sb.AppendLine($"  u(0+) = {N(e.Initial, 5)}, peak |u| = {N(e.Peak, 5)} at {N(e.PeakTime, 3)} s{limits}");
+        sb.AppendLine($"  u(0+) = {N(e.Initial, 5)}, peak |u| = {N(e.Peak, 5)} {(double.IsPositiveInfinity(e.PeakTime) ? "approached as t → ∞" : $"at {N(e.PeakTime, 3)} s")}{limits}");
         sb.AppendLine();
 
         if (robustness is not null)

@@ -60,7 +60,7 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
         if (needsEffort)
         {
             effort = transfers.Effort is { } u
-                ? Effort(CascadeRealization.Of(u), roots, horizon)
+                ? Effort(CascadeRealization.Of(u), roots, horizon, roots.All(r => r.Real < 0) ? u.DcGain : double.NaN)
                 : EffortFigures.Impulse(check);
         }
 
@@ -95,10 +95,10 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
         _ => double.PositiveInfinity,
     };
 
-    private EffortFigures Effort(StateSpace u, ImmutableArray<Complex> roots, double horizon)
+    private EffortFigures Effort(StateSpace u, ImmutableArray<Complex> roots, double horizon, double finalCommand)
     {
         var (high, highTime, low, lowTime) = StepAnalysis.Extremes(u, roots, horizon);
-        return EffortFigures.Of(u.D, high, highTime, low, lowTime, check);
+        return EffortFigures.Of(u.D, high, highTime, low, lowTime, check, finalCommand);
     }
 
     /// <summary>How far a row falls short of its bound tightened by the margin, relative to the bound (0 when it holds).</summary>

@@ -46,6 +46,40 @@ public class DesignCommandTests
         Assert.Contains(message, error, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("--output-limits", "5", "is not LOW,HIGH")]
+    [InlineData("--output-limits", "100,0", "needs LOW below HIGH")]
+    [InlineData("--output-limits", "0,nan", "needs LOW below HIGH")]
+    public void Design_BadOutputLimits_ValueErrorNamingTheFlag(string flag, string value, string message)
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "4/(s(s+2))", "--overshoot", "10", "--settling", "2", "--corner", flag, value);
+        Assert.Equal(2, code);
+        Assert.Empty(output);
+        Assert.Contains(message, error, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData(new[] { "--actuator-limit", "5", "--output-limits", "0,5" }, "both given")]
+    [InlineData(new[] { "--output-limits", "0,100", "--operating-point", "120" }, "lies outside the output limits")]
+    public void Design_ConflictingLimits_InputError(string[] flags, string message)
+    {
+        var (code, _, error) = CliRunner.Run(["design", "--plant", "4/(s(s+2))", "--overshoot", "10", "--settling", "2", "--corner", .. flags]);
+        Assert.Equal(2, code);
+        Assert.Contains(message, error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_OutputLimitsAboutAnOperatingPoint_JsonGivesTheRoomAndTheCommandRange()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "4/(s(s+2))", "--overshoot", "10", "--settling", "2", "--corner", "--output-limits", "0,100", "--operating-point", "40", "--json");
+        using var json = System.Text.Json.JsonDocument.Parse(output);
+        CliRunner.AssertProvedExitCode(code, json.RootElement, error);
+        var effort = json.RootElement.GetProperty("check").GetProperty("effort");
+        Assert.Equal(-40.0, effort.GetProperty("roomLow").GetDouble());
+        Assert.Equal(60.0, effort.GetProperty("roomHigh").GetDouble());
+        Assert.True(effort.GetProperty("highest").GetDouble() >= effort.GetProperty("lowest").GetDouble());
+    }
+
     [Fact]
     public void Design_Kinds_ComparesEachAndKeepsTheBest()
     {

@@ -74,7 +74,24 @@ public class CaseFileReaderTests
         { "format = 1\n[requirements]\novershoot_percent = 5e-324", "[requirements] overshoot_percent is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
         { "format = 1\n[requirements]\nkv = inf", "[requirements] kv is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
         { "format = 1\n[requirements]\nkv = nan", "[requirements] kv is not a usable number (NaN, an infinity or below 1e-300 in magnitude)" },
+        { "format = 1\n[check]\noutput_limits = [100, 0]", "[check] output_limits must be [low, high] with low < high" },
+        { "format = 1\n[check]\noutput_limits = 100", "[check] output_limits must be [low, high] with low < high" },
+        { "format = 1\n[check]\nactuator_limit = 5\noutput_limits = [0, 5]", "[check] gives both actuator_limit and output_limits" },
+        { "format = 1\n[check]\noutput_limits = [0, 100]\noperating_point = -3", "[check] operating_point = -3 lies outside the output limits 0 … 100" },
     };
+
+    [Fact]
+    public void Read_OutputLimitsAndOperatingPoint_ReadAndWrittenBack()
+    {
+        var (c, error) = CaseFileReader.Read("format = 1\n[loop]\nplant = \"1/(s+1)\"\n[check]\noutput_limits = [0, 100.5]\noperating_point = 20\n", "heater.toml");
+        Assert.Null(error);
+        Assert.Equal(0.0, c!.Check.OutputLimits!.Low);
+        Assert.Equal(100.5, c.Check.OutputLimits.High);
+        Assert.Equal(-20.0, c.Check.CommandRoom!.Low);
+        Assert.Equal(80.5, c.Check.CommandRoom.High);
+        var (again, _) = CaseFileReader.Read(CaseFileWriter.Write(c), "again.toml");
+        Assert.Equal(c.Check, again!.Check);
+    }
 
     [Theory]
     [MemberData(nameof(BadFiles))]

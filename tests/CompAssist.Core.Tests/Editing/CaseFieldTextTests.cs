@@ -1,6 +1,7 @@
 using CompAssist.Core.Cases;
 using CompAssist.Core.Editing;
 using CompAssist.Core.Model;
+using CompAssist.Core.Proof;
 using CompAssist.Core.Synthesis;
 using CompAssist.Core.Targets;
 
@@ -41,6 +42,25 @@ public class CaseFieldTextTests
         var cleared = CaseFieldText.Apply(edit.Case!, field, string.Empty);
         Assert.True(cleared.IsSuccess);
         Assert.Equal(string.Empty, CaseFieldText.Of(cleared.Case!, field));
+    }
+
+    [Fact]
+    public void Apply_ActuatorLimitField_OneNumberIsALimitOnMagnitudeAPairIsOutputLimits()
+    {
+        var c = new CaseFile { Plant = "1/(s+1)" };
+        var pair = CaseFieldText.Apply(c, CaseField.ActuatorLimit, "0, 100");
+        Assert.True(pair.IsSuccess);
+        Assert.Equal(CommandRange.Create(0, 100), pair.Case.Check.OutputLimits);
+        Assert.Null(pair.Case.Check.ActuatorLimit);
+        Assert.Equal("0,100", CaseFieldText.Of(pair.Case, CaseField.ActuatorLimit));
+        var single = CaseFieldText.Apply(pair.Case, CaseField.ActuatorLimit, "12");
+        Assert.Equal(12.0, single.Case!.Check.ActuatorLimit);
+        Assert.Null(single.Case.Check.OutputLimits);
+        var bad = CaseFieldText.Apply(c, CaseField.ActuatorLimit, "0,1x0");
+        Assert.False(bad.IsSuccess);
+        Assert.Equal(3, bad.Error.Index);
+        Assert.False(CaseFieldText.Apply(c, CaseField.ActuatorLimit, "5,1").IsSuccess);
+        Assert.False(CaseFieldText.Apply(c with { Check = c.Check with { OperatingPoint = 50 } }, CaseField.ActuatorLimit, "0,10").IsSuccess);
     }
 
     [Fact]

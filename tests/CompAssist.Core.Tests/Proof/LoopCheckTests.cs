@@ -66,6 +66,25 @@ public class LoopCheckTests
     }
 
     [Fact]
+    public void Run_AsymmetricOutputLimits_ChecksHighestAndLowestCommandAboutTheOperatingPoint()
+    {
+        // By hand: 1/(s+1) under the static gain 2 gives y = (2/3)(1 − e^{−3t}) and u = 2(1 − y), from 2 at t = 0⁺
+        // down to 2/3. With limits 0 … 1.7 about u0 = 0.2 the room is −0.2 … 1.5: the highest command 2 leaves it.
+        var loop = Loop.Create(ExpressionParser.Parse("1/(s+1)", false).Value!);
+        var options = new CheckOptions { OutputLimits = CommandRange.Create(0.0, 1.7), OperatingPoint = 0.2 };
+        var check = LoopCheck.Run(loop, ExpressionParser.Parse("2", false).Value!, options);
+        Tolerance.Close(2.0, check.EffortFigures.Highest, 1e-9);
+        Tolerance.Close(2.0 / 3.0, check.EffortFigures.Lowest, 1e-12, what: "the final command joins the extremes");
+        Assert.True(check.EffortFigures.Saturates);
+        var highest = Assert.Single(check.Checks, c => c.Name == RequirementChecks.CommandHighest);
+        Assert.False(highest.Passes);
+        Assert.True(Assert.Single(check.Checks, c => c.Name == RequirementChecks.CommandLowest).Passes);
+        var roomy = LoopCheck.Run(loop, ExpressionParser.Parse("2", false).Value!, options with { OutputLimits = CommandRange.Create(0.0, 2.5) });
+        Assert.False(roomy.EffortFigures.Saturates);
+        Assert.All(roomy.Checks.Where(c => c.Name.Contains("u − u0", StringComparison.Ordinal)), c => Assert.True(c.Passes));
+    }
+
+    [Fact]
     public void Run_StrictlyProperPlant_InitialEffortIsHighFrequencyGain()
     {
         // u(0+) equals the compensator's high-frequency gain when C·G·H is strictly proper (common practice).
