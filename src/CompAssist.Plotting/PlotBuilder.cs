@@ -68,26 +68,108 @@ public static class PlotBuilder
         return model;
     }
 
-    /// <summary>The sampled loop's closed-loop poles in the z-plane with the unit circle.</summary>
+    /// <summary>
+    /// The sampled loop's closed-loop poles in the z-plane, zoomed where they are (near z = 1 for fast sampling) with
+    /// the unit-circle arc, constant-ζ curves (ζ = 0.2 … 0.8) and constant-ωn·T curves, so the margin to the circle
+    /// can be read.
+    /// </summary>
     public static PlotModel ZPlanePoles(string title, IEnumerable<Complex> closedLoopPoles, IEnumerable<Complex> controllerZeros, double sampleTime)
     {
         ArgumentNullException.ThrowIfNull(closedLoopPoles);
         ArgumentNullException.ThrowIfNull(controllerZeros);
-        var model = NewModel(title.Length > 0 ? $"Sampled closed-loop poles — {title}" : "Sampled closed-loop poles", $"z-plane, T = {TransferFunctionFormatter.Number(sampleTime, 4)} s; stable inside the unit circle");
+        var poles = closedLoopPoles.ToList();
+        var zeros = controllerZeros.ToList();
+        var view = ZPlaneView(poles, zeros);
+        var zoomed = view.Width < 2.0;
+        var model = NewModel(title.Length > 0 ? $"Sampled closed-loop poles — {title}" : "Sampled closed-loop poles", $"z-plane, T = {TransferFunctionFormatter.Number(sampleTime, 4)} s; stable inside the unit circle{(zoomed ? "; zoomed on the poles" : string.Empty)}");
         model.PlotType = PlotType.Cartesian;
-        model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = "Re z", Minimum = -1.3, Maximum = 1.3, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
-        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "Im z", Minimum = -1.3, Maximum = 1.3, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Bottom, Title = "Re z", Minimum = view.Left, Maximum = view.Left + view.Width, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
+        model.Axes.Add(new LinearAxis { Position = AxisPosition.Left, Title = "Im z", Minimum = view.Bottom, Maximum = view.Bottom + view.Width, MajorGridlineStyle = LineStyle.Solid, MajorGridlineColor = OxyColor.FromAColor(30, OxyColors.Black) });
         var circle = new LineSeries { Title = "unit circle", Color = Guide, LineStyle = LineStyle.Dash, StrokeThickness = 1 };
-        for (var k = 0; k <= 360; k++)
+        for (var k = 0; k <= 3600; k++)
         {
-            circle.Points.Add(new DataPoint(Math.Cos(k * Math.PI / 180), Math.Sin(k * Math.PI / 180)));
+            circle.Points.Add(new DataPoint(Math.Cos(k * Math.PI / 1800), Math.Sin(k * Math.PI / 1800)));
         }
 
         model.Series.Add(circle);
-        Markers(model, closedLoopPoles, MarkerType.Cross, Designed, "closed-loop pole");
-        Markers(model, controllerZeros, MarkerType.Circle, Branch, "controller zero", hollow: true);
+        foreach (var zeta in new[] { 0.2, 0.4, 0.6, 0.8 })
+        {
+            model.Series.Add(Curve(zeta == 0.2 ? "constant ζ (0.2, 0.4, 0.6, 0.8)" : null, 400, k => k / 400.0 * Math.PI / Math.Sqrt(1 - (zeta * zeta)), w => Complex.Exp(w * new Complex(-zeta, Math.Sqrt(1 - (zeta * zeta))))));
+        }
+
+        var first = true;
+        foreach (var wnT in GuideFrequencies(view))
+        {
+            model.Series.Add(Curve(first ? "constant ωn·T" : null, 100, k => k / 100.0, zeta => Complex.Exp(wnT * new Complex(-zeta, Math.Sqrt(1 - (zeta * zeta))))));
+            first = false;
+        }
+
+        Markers(model, poles, MarkerType.Cross, Designed, "closed-loop pole");
+        Markers(model, zeros, MarkerType.Circle, Branch, "controller zero", hollow: true);
         Legend(model);
         return model;
+    }
+
+    /// <summary>
+    /// The square window of the z-plane the pole plot shows: the whole unit circle (−1.3 … 1.3) unless the poles and
+    /// the zeros near them, with z = 1, fit in a box less than half as wide, which is then shown with a fifth of its
+    /// width as margin on each side.
+    /// </summary>
+    public static (double Left, double Bottom, double Width) ZPlaneView(IReadOnlyCollection<Complex> poles, IReadOnlyCollection<Complex> zeros)
+    {
+        ArgumentNullException.ThrowIfNull(poles);
+        ArgumentNullException.ThrowIfNull(zeros);
+        var points = poles.Concat(zeros.Where(z => z.Magnitude <= 1.5)).Where(z => double.IsFinite(z.Real) && double.IsFinite(z.Imaginary)).Append(Complex.One).ToList();
+        var (left, right) = (points.Min(z => z.Real), points.Max(z => z.Real));
+        var (bottom, top) = (points.Min(z => z.Imaginary), points.Max(z => z.Imaginary));
+        var size = Math.Max(Math.Max(right - left, top - bottom), 1e-6);
+        if (size > 1.3 || poles.Count == 0)
+        {
+            return (-1.3, -1.3, 2.6);
+        }
+
+        var width = size * 1.4;
+        return (((left + right) / 2) - (width / 2), ((bottom + top) / 2) - (width / 2), width);
+    }
+
+    // ωn·T values on a 1-2-5 ladder whose curves pass through the window (at most six).
+    private static IEnumerable<double> GuideFrequencies((double Left, double Bottom, double Width) view)
+    {
+        var reach = Math.Min(Math.PI, Math.Max(1e-6, 1.5 * view.Width));
+        var values = new List<double>();
+        for (var decade = Math.Pow(10, Math.Floor(Math.Log10(reach)) - 1); values.Count < 6 && decade <= Math.PI; decade *= 10)
+        {
+            foreach (var m in new[] { 1.0, 2.0, 5.0 })
+            {
+                var v = m * decade;
+                if (v <= reach && v <= Math.PI && v >= reach / 20)
+                {
+                    values.Add(v);
+                }
+            }
+        }
+
+        return values.Take(6);
+    }
+
+    private static LineSeries Curve(string? title, int steps, Func<int, double> parameter, Func<double, Complex> point)
+    {
+        // The upper half, a break, then the lower half (its mirror image).
+        var line = new LineSeries { Title = title, Color = OxyColor.FromAColor(160, Guide), LineStyle = LineStyle.Dot, StrokeThickness = 1 };
+        for (var k = 0; k <= steps; k++)
+        {
+            var z = point(parameter(k));
+            line.Points.Add(new DataPoint(z.Real, z.Imaginary));
+        }
+
+        line.Points.Add(DataPoint.Undefined);
+        for (var k = 0; k <= steps; k++)
+        {
+            var z = point(parameter(k));
+            line.Points.Add(new DataPoint(z.Real, -z.Imaginary));
+        }
+
+        return line;
     }
 
     private static PlotModel NewModel(string title, string subtitle) => new()

@@ -23,7 +23,7 @@ public static class Quantizer
         var dcChange = double.IsFinite(dc0) && dc0 != 0 && double.IsFinite(dc1) ? 100 * Math.Abs(dc1 - dc0) / Math.Abs(dc0) : double.NaN;
 
         var warnings = ImmutableArray.CreateBuilder<string>();
-        var fix = "Use cascaded sections (already used here), a wider word, float, or a lower sample rate (slow corners at fast rates crowd their poles against z = 1).";
+        var fix = "Store the coefficients in a wider word, float or double (the sections are cascaded already; slow corners at fast rates crowd their poles against z = 1, where rounding moves them most).";
         var originallyInside = original.Poles.All(p => p.Magnitude < 1);
         var unstablePoles = quantized.Poles.Where(p => p.Magnitude >= 1 - 1e-15).ToList();
         if (unstablePoles.Count > 0 && (originallyInside || unstablePoles.Any(p => p.Magnitude > 1 + 1e-12)))

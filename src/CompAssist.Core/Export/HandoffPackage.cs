@@ -150,6 +150,7 @@ public sealed record HandoffPackage(
             }
         }
 
+        note += RateAdvice(quantization, discrete.Value, sampled, ladder, t, options.Format);
         var pidPart = PidExport.Build(report, options, t, origin);
         files.AddRange(pidPart.Files);
         var pidNote = pidPart.Note;
@@ -375,6 +376,28 @@ public sealed record HandoffPackage(
         sb.Append(DesignTextReport.Render(report, caseName, Pictures.PictureStyle.Ascii));
         sb.AppendLine("```");
         return sb.ToString();
+    }
+
+    /// <summary>
+    /// One recommendation about the rate when the coefficients lose accuracy: a longer sample time eases them only
+    /// when the loop allows it (a longer value on the ladder still meets and nothing asks for faster sampling);
+    /// otherwise the loop's need wins and the remedy is the number format.
+    /// </summary>
+    private static string RateAdvice(QuantizationReport quantization, Discretizer.Result discrete, LadderRung sampled, SampleTimeLadder ladder, double t, NumberFormat format)
+    {
+        if (quantization.Warnings.IsEmpty)
+        {
+            return string.Empty;
+        }
+
+        // The loop asks for faster sampling when a corner is beyond a quarter of the sampling frequency, or when it
+        // fails here and only a shorter value (or none) on the ladder meets.
+        var failsHere = !sampled.Meets && !(ladder.Recommended is { } ok && ok > t);
+        var loopWantsFaster = failsHere || discrete.Warnings.Any(w => w.Contains("Sample faster", StringComparison.Ordinal));
+        var longest = new[] { ladder.Limit, ladder.Recommended }.Where(x => x is not null).Select(x => x!.Value).DefaultIfEmpty(0).Max();
+        return !loopWantsFaster && longest > t
+            ? $" Rounding to {format} moves the coefficients at this rate: a longer sample time eases it (up to {F(longest)} s the sampled loop still meets), or store them in a wider format."
+            : $" Rounding to {format} moves the coefficients at this rate, and the loop needs this rate or a faster one: store them in a wider format rather than sampling more slowly.";
     }
 
     private static string F(double x) => TransferFunctionFormatter.Number(x, 5);
