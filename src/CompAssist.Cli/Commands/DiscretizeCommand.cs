@@ -15,9 +15,10 @@ internal static class DiscretizeCommand
         var sampleTime = new RealOption("--sample-time") { Description = "Sample time T in seconds." };
         var method = new Option<string>("--method") { Description = "tustin, prewarp, matched, zoh, backward (forward only with a warning).", DefaultValueFactory = _ => "tustin" };
         var prewarp = new RealOption("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s (prewarp method)." };
-        var json = new Option<bool>("--json") { Description = "Machine-readable JSON on stdout." };
+        var sections = new Option<bool>("--sections") { Description = "Print the cascade of second-order sections (the form to implement) instead of the single difference equation." };
+        var json = new Option<bool>("--json") { Description = "Machine-readable JSON on stdout (the direct form and the sections)." };
         var command = new Command("discretize", "Discretize a compensator: coefficients in ascending powers of z^-1 and the difference equation.");
-        foreach (var option in new Option[] { compensator, sampleTime, method, prewarp, json })
+        foreach (var option in new Option[] { compensator, sampleTime, method, prewarp, sections, json })
         {
             command.Options.Add(option);
         }
@@ -54,7 +55,13 @@ internal static class DiscretizeCommand
                 return failure;
             }
 
-            stdout.Write(parse.GetValue(json) ? DiscreteReport.RenderJson(result.Value!) + Environment.NewLine : DiscreteReport.RenderText(parsed.Value, result.Value!));
+            var asSections = parse.GetValue(sections);
+            stdout.Write(parse.GetValue(json) ? DiscreteReport.RenderJson(result.Value!) + Environment.NewLine : DiscreteReport.RenderText(parsed.Value, result.Value!, asSections));
+            if (!asSections && !parse.GetValue(json) && DiscreteReport.DirectFormWarnings(result.Value!.Discrete).Any())
+            {
+                stdout.WriteLine("  (run again with --sections for the cascade to implement)");
+            }
+
             return CliApplication.Success;
         });
         return command;

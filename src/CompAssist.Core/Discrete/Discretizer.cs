@@ -96,10 +96,15 @@ public static class Discretizer
             return DiscreteTransferFunction.FromFactors(g.Gain, [], [], t);
         }
 
-        // G(z) = C(zI − Φ)⁻¹Γ + D; the numerator N(z) = den(z)·G(z) is recovered from its values on the unit
-        // circle by an inverse discrete Fourier transform (well conditioned), then its roots are found.
         var ss = CascadeRealization.Of(g.WithoutDelay());
         var (phi, gamma) = StepSimulator.Discretize(ss, t);
+        if (InvariantZeros(ss, phi, gamma) is { } invariant)
+        {
+            return DiscreteTransferFunction.FromFactors(invariant.Gain, invariant.Zeros, poles, t);
+        }
+
+        // G(z) = C(zI − Φ)⁻¹Γ + D; the numerator N(z) = den(z)·G(z) is recovered from its values on the unit
+        // circle by an inverse discrete Fourier transform (well conditioned), then its roots are found.
         var den = Numerics.Polynomial.FromRoots(poles);
         var m = n + 1;
         var values = new Complex[m];
@@ -140,6 +145,77 @@ public static class Discretizer
         var num = Numerics.Polynomial.FromAscending(coefficients);
         var zeros = num.Degree > 0 ? Numerics.RootFinder.Find(num).Roots : [];
         return DiscreteTransferFunction.FromFactors(num.Leading, zeros, poles, t);
+    }
+
+    /// <summary>
+    /// The zeros of the sampled system (Φ, Γ, C, D) as eigenvalues rather than polynomial roots: with D ≠ 0 they are
+    /// the eigenvalues of Φ − Γ·C/D; with D = 0 and CΓ ≠ 0 they are those of (I − Γ·C/(CΓ))·Φ less the one
+    /// structural eigenvalue at 0 (the output's next value set to zero: y[k+1] = CΦx + CΓu = 0). Polynomial roots of the
+    /// expanded numerator lose the zeros that crowd against z = 1 at fast rates (a fifth-order lag at 0.5 ms: the DC
+    /// gain three times off); the eigenvalues of the well-scaled cascade keep them. Null when CΓ vanishes (relative
+    /// degree above one), left to the polynomial route.
+    /// </summary>
+    private static (double Gain, IReadOnlyList<Complex> Zeros)? InvariantZeros(StateSpace ss, double[,] phi, double[] gamma)
+    {
+        var n = ss.Order;
+        var c = Enumerable.Range(0, n).Select(ss.C).ToArray();
+        var cGamma = c.Zip(gamma, (x, y) => x * y).Sum();
+        var scale = Math.Sqrt(c.Sum(x => x * x) * gamma.Sum(x => x * x));
+        double factor;
+        var m = new double[n, n];
+        if (ss.D != 0)
+        {
+            factor = ss.D;
+            for (var i = 0; i < n; i++)
+            {
+                for (var j = 0; j < n; j++)
+                {
+                    m[i, j] = phi[i, j] - (gamma[i] * c[j] / ss.D);
+                }
+            }
+        }
+        else if (Math.Abs(cGamma) > 1e-9 * scale)
+        {
+            factor = cGamma;
+            var cPhi = new double[n];
+            for (var j = 0; j < n; j++)
+            {
+                for (var k = 0; k < n; k++)
+                {
+                    cPhi[j] += c[k] * phi[k, j];
+                }
+            }
+
+            for (var i = 0; i < n; i++)
+            {
+                for (var j = 0; j < n; j++)
+                {
+                    m[i, j] = phi[i, j] - (gamma[i] * cPhi[j] / cGamma);
+                }
+            }
+        }
+        else
+        {
+            return null;
+        }
+
+        if (n == 0)
+        {
+            return (factor, []);
+        }
+
+        var eigen = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfArray(m).Evd(MathNet.Numerics.LinearAlgebra.Symmetricity.Asymmetric).EigenValues.ToList();
+        if (ss.D == 0)
+        {
+            eigen.RemoveAt(eigen.FindIndex(e => e.Magnitude == eigen.Min(x => x.Magnitude)));
+        }
+
+        if (eigen.Any(e => !double.IsFinite(e.Real) || !double.IsFinite(e.Imaginary)) || !Numerics.ConjugateSymmetry.IsClosed(eigen))
+        {
+            return null;
+        }
+
+        return (factor, Numerics.ConjugateSymmetry.Canonical(eigen));
     }
 
     private static Complex Evaluate(StateSpace ss, double[,] phi, double[] gamma, Complex z)

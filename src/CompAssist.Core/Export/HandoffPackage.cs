@@ -315,6 +315,11 @@ public sealed record HandoffPackage(
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Method: {DiscreteReport.MethodName(discrete.Method)} ({discrete.GainMatching}); computation delay {(options.ComputationDelay ? "one sample" : "none")}");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Form: cascaded sections in transposed direct form II; coefficients stored as {options.Format}{(options.Format.Kind == NumberFormatKind.Fixed ? $" (fractional bits per section: {string.Join(", ", quantization.Sections.Select(q => q.FractionalBits))}; round to nearest, saturate)" : string.Empty)}; actuator saturation and anti-windup are not included in the section cascade (see the PID export for PID designs)");
         sb.AppendLine(CultureInfo.InvariantCulture, $"- Quantization: largest pole shift {F(quantization.LargestPoleShift)}, largest zero shift {F(quantization.LargestZeroShift)}, DC gain change {F(quantization.DcGainChangePercent)} %; the sampled loop below uses the stored coefficients");
+        if (options.Format.Kind != NumberFormatKind.Fixed && DirectFormAccuracy.Of(d, options.Format) is { DirectLosesAccuracy: true } direct)
+        {
+            sb.AppendLine(CultureInfo.InvariantCulture, $"- Why sections: one direct form in {options.Format} would implement a DC gain of {F(direct.DirectDcGain)} instead of {F(direct.DesignedDcGain)}; the cascaded sections stored the same way implement {F(direct.SectionsDcGain)}. Do not recombine them into one difference equation.");
+        }
+
         sb.AppendLine("- Units: input = control error (measurement units), output = actuator command");
         sb.AppendLine();
         sb.AppendLine("## Sample time: the ladder re-proved");

@@ -11,8 +11,8 @@ public static class DiscreteReport
     /// <summary>The method's command-line name.</summary>
     public static string MethodName(DiscretizationMethod method) => method.ToString().ToLowerInvariant();
 
-    /// <summary>For people: the coefficients, the difference equation and its convention.</summary>
-    public static string RenderText(TransferFunction continuous, Discretizer.Result result)
+    /// <summary>For people: the coefficients, the difference equation and its convention (the direct form, or with <paramref name="sections"/> the cascade of sections).</summary>
+    public static string RenderText(TransferFunction continuous, Discretizer.Result result, bool sections = false)
     {
         ArgumentNullException.ThrowIfNull(continuous);
         ArgumentNullException.ThrowIfNull(result);
@@ -25,21 +25,39 @@ public static class DiscreteReport
         sb.AppendLine($"  poles in z: {(d.Poles.Length == 0 ? "none" : string.Join(", ", d.Poles.Select(z => TransferFunctionFormatter.Complex(z, 8))))}");
         sb.AppendLine($"  DC gain C(z=1) = {N(d.DcGain)}");
         sb.AppendLine();
-        sb.AppendLine("  C(z) = (b0 + b1 z^-1 + ... + bn z^-n) / (1 + a1 z^-1 + ... + an z^-n)");
-        for (var i = 0; i < d.Numerator.Length; i++)
+        if (sections)
         {
-            sb.AppendLine($"    b{i} = {d.Numerator[i]:R}");
+            var cascade = SectionSplitter.Split(d);
+            sb.AppendLine($"  {cascade.Length} cascaded section(s), each (b0 + b1 z^-1 + b2 z^-2) / (1 + a1 z^-1 + a2 z^-2), applied in this order:");
+            for (var i = 0; i < cascade.Length; i++)
+            {
+                var q = cascade[i];
+                sb.AppendLine($"    section {i + 1}: b0 = {q.B0:R}, b1 = {q.B1:R}, b2 = {q.B2:R}, a1 = {q.A1:R}, a2 = {q.A2:R}");
+            }
+
+            sb.AppendLine();
+            sb.AppendLine("  each section in transposed direct form II (x in, y out; the first section's x is the control error e,");
+            sb.AppendLine("  the last one's y the command u): y = b0 x + s1; s1 = b1 x - a1 y + s2; s2 = b2 x - a2 y");
+        }
+        else
+        {
+            sb.AppendLine("  C(z) = (b0 + b1 z^-1 + ... + bn z^-n) / (1 + a1 z^-1 + ... + an z^-n)");
+            for (var i = 0; i < d.Numerator.Length; i++)
+            {
+                sb.AppendLine($"    b{i} = {d.Numerator[i]:R}");
+            }
+
+            for (var i = 1; i < d.Denominator.Length; i++)
+            {
+                sb.AppendLine($"    a{i} = {d.Denominator[i]:R}");
+            }
+
+            sb.AppendLine();
+            sb.AppendLine("  difference equation (e the control error in, u the command out, k the sample index):");
+            sb.AppendLine("    u[k] = b0 e[k] + b1 e[k-1] + ... - a1 u[k-1] - a2 u[k-2] - ...");
         }
 
-        for (var i = 1; i < d.Denominator.Length; i++)
-        {
-            sb.AppendLine($"    a{i} = {d.Denominator[i]:R}");
-        }
-
-        sb.AppendLine();
-        sb.AppendLine("  difference equation (e the control error in, u the command out, k the sample index):");
-        sb.AppendLine("    u[k] = b0 e[k] + b1 e[k-1] + ... - a1 u[k-1] - a2 u[k-2] - ...");
-        foreach (var w in result.Warnings)
+        foreach (var w in result.Warnings.Concat(DirectFormWarnings(d)))
         {
             TextWrap.AppendTo(sb, w, "  ! ");
         }
@@ -48,6 +66,31 @@ public static class DiscreteReport
         Cautions.AppendSection(sb);
 
         return sb.ToString();
+    }
+
+    /// <summary>
+    /// What storing C(z) as one direct form does, in double and in float, when it loses accuracy: by how much, against
+    /// the cascade of sections.
+    /// </summary>
+    public static IEnumerable<string> DirectFormWarnings(DiscreteTransferFunction d)
+    {
+        ArgumentNullException.ThrowIfNull(d);
+        foreach (var format in new[] { NumberFormat.Double, NumberFormat.Float })
+        {
+            var a = DirectFormAccuracy.Of(d, format);
+            if (!a.DirectLosesAccuracy)
+            {
+                continue;
+            }
+
+            var what = double.IsInfinity(a.DesignedDcGain)
+                ? $"loses the integrator: its DC gain is {N(a.DirectDcGain)} instead of infinite"
+                : $"implements a DC gain of {N(a.DirectDcGain)} instead of {N(a.DesignedDcGain)} ({(Math.Sign(a.DirectDcGain) != Math.Sign(a.DesignedDcGain) ? "the wrong sign" : $"{N(a.DirectErrorPercent)} % off")})";
+            var sectionsKeep = a.SectionsErrorPercent <= DirectFormAccuracy.TolerancePercent;
+            yield return sectionsKeep
+                ? $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; cascaded second-order sections stored the same way keep the DC gain within {N(a.SectionsErrorPercent)} %. Implement the sections, not the single difference equation."
+                : $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; even cascaded second-order sections in {format} implement a DC gain of {N(a.SectionsDcGain)}. Implement the sections in a wider format, or sample more slowly if the loop allows it.";
+        }
     }
 
     /// <summary>The machine interface: numerator/denominator ascending in z⁻¹ (a0 = 1), method, sampleTime.</summary>
@@ -68,8 +111,35 @@ public static class DiscreteReport
             JsonNumbers.WriteComplexArray(w, "poles", d.Poles);
             JsonNumbers.Write(w, "dcGain", d.DcGain);
             w.WriteString("gainMatching", result.GainMatching);
+            w.WriteStartArray("sections");
+            foreach (var q in SectionSplitter.Split(d))
+            {
+                w.WriteStartObject();
+                w.WriteNumber("b0", q.B0);
+                w.WriteNumber("b1", q.B1);
+                w.WriteNumber("b2", q.B2);
+                w.WriteNumber("a1", q.A1);
+                w.WriteNumber("a2", q.A2);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndArray();
+            w.WriteStartObject("directForm");
+            foreach (var (key, format) in new[] { ("double", NumberFormat.Double), ("float", NumberFormat.Float) })
+            {
+                var a = DirectFormAccuracy.Of(d, format);
+                w.WriteStartObject(key);
+                JsonNumbers.Write(w, "dcGain", a.DirectDcGain);
+                JsonNumbers.Write(w, "sectionsDcGain", a.SectionsDcGain);
+                JsonNumbers.Write(w, "dcGainErrorPercent", a.DirectErrorPercent);
+                JsonNumbers.Write(w, "poleShift", a.DirectPoleShift);
+                w.WriteBoolean("losesAccuracy", a.DirectLosesAccuracy);
+                w.WriteEndObject();
+            }
+
+            w.WriteEndObject();
             w.WriteStartArray("warnings");
-            foreach (var warning in result.Warnings)
+            foreach (var warning in result.Warnings.Concat(DirectFormWarnings(d)))
             {
                 w.WriteStringValue(warning);
             }

@@ -1,3 +1,4 @@
+using CsCheck;
 using System.Numerics;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Model;
@@ -75,6 +76,21 @@ public class DiscretizerTests
             // The sampled output at k responds to inputs up to k − 1 (one-sample delay of a strictly proper G).
             Tolerance.Close(continuous.Values[k], y[k], 0, 1e-10, $"k={k}");
         }
+    }
+
+    [Fact]
+    public void Zoh_SlowHighOrderAtAFastRate_KeepsTheDcGain()
+    {
+        // The ZOH equivalent is step invariant, so C(z = 1) = C(s = 0) (common practice; Franklin, Powell and
+        // Workman, Digital Control of Dynamic Systems, 3rd ed., ch. 6). Slow corners at a fast rate crowd poles and
+        // zeros against z = 1, where roots of an expanded numerator lose them (a fifth-order lag at 0.5 ms gave 21.6
+        // for 7.09); the factored result evaluated at z = 1 must keep the DC gain.
+        Gen.Select(Gen.Double[0.05, 5].Array[3, 6], Gen.Double[0.05, 5].Array[0, 2], Gen.Double[1e-4, 1e-2]).Sample((poles, zeros, t) =>
+        {
+            var text = FormattableString.Invariant($"2 {string.Concat(zeros.Select(z => $"(s+{z})"))}/({string.Concat(poles.Select(p => $"(s+{p})"))})");
+            var g = FromText(text);
+            Tolerance.Close(g.DcGain, Discretizer.ZeroOrderHold(g, t).DcGain, 1e-6, what: $"{text} at T = {t}");
+        }, iter: 300);
     }
 
     [Fact]
