@@ -261,19 +261,7 @@ public sealed record HandoffPackage(
             w.WriteEndObject();
             JsonNumbers.WriteArray(w, "numerator", d.Numerator);
             JsonNumbers.WriteArray(w, "denominator", d.Denominator);
-            w.WriteStartArray("sections");
-            foreach (var q in sections)
-            {
-                w.WriteStartObject();
-                w.WriteNumber("b0", q.B0);
-                w.WriteNumber("b1", q.B1);
-                w.WriteNumber("b2", q.B2);
-                w.WriteNumber("a1", q.A1);
-                w.WriteNumber("a2", q.A2);
-                w.WriteEndObject();
-            }
-
-            w.WriteEndArray();
+            DiscreteReport.WriteSections(w, "sections", sections);
             w.WriteStartObject("sampledLoop");
             w.WriteBoolean("stable", proof.Stable);
             w.WriteNumber("largestPoleMagnitude", proof.LargestPoleMagnitude);

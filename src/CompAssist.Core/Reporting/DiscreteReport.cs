@@ -75,22 +75,46 @@ public static class DiscreteReport
     public static IEnumerable<string> DirectFormWarnings(DiscreteTransferFunction d)
     {
         ArgumentNullException.ThrowIfNull(d);
-        foreach (var format in new[] { NumberFormat.Double, NumberFormat.Float })
-        {
-            var a = DirectFormAccuracy.Of(d, format);
-            if (!a.DirectLosesAccuracy)
-            {
-                continue;
-            }
+        return Accuracies(d).Select(Warning).OfType<string>();
+    }
 
-            var what = double.IsInfinity(a.DesignedDcGain)
-                ? $"loses the integrator: its DC gain is {N(a.DirectDcGain)} instead of infinite"
-                : $"implements a DC gain of {N(a.DirectDcGain)} instead of {N(a.DesignedDcGain)} ({(Math.Sign(a.DirectDcGain) != Math.Sign(a.DesignedDcGain) ? "the wrong sign" : $"{N(a.DirectErrorPercent)} % off")})";
-            var sectionsKeep = a.SectionsErrorPercent <= DirectFormAccuracy.TolerancePercent;
-            yield return sectionsKeep
-                ? $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; cascaded second-order sections stored the same way keep the DC gain within {N(a.SectionsErrorPercent)} %. Implement the sections, not the single difference equation."
-                : $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; even cascaded second-order sections in {format} implement a DC gain of {N(a.SectionsDcGain)}. Implement the sections in a wider format, or sample more slowly if the loop allows it.";
+    /// <summary>Sections as a JSON array of {b0, b1, b2, a1, a2} objects.</summary>
+    public static void WriteSections(Utf8JsonWriter w, string name, IEnumerable<Section> sections)
+    {
+        ArgumentNullException.ThrowIfNull(w);
+        ArgumentNullException.ThrowIfNull(sections);
+        w.WriteStartArray(name);
+        foreach (var q in sections)
+        {
+            w.WriteStartObject();
+            w.WriteNumber("b0", q.B0);
+            w.WriteNumber("b1", q.B1);
+            w.WriteNumber("b2", q.B2);
+            w.WriteNumber("a1", q.A1);
+            w.WriteNumber("a2", q.A2);
+            w.WriteEndObject();
         }
+
+        w.WriteEndArray();
+    }
+
+    private static DirectFormAccuracy[] Accuracies(DiscreteTransferFunction d) =>
+        [DirectFormAccuracy.Of(d, NumberFormat.Double), DirectFormAccuracy.Of(d, NumberFormat.Float)];
+
+    private static string? Warning(DirectFormAccuracy a)
+    {
+        if (!a.DirectLosesAccuracy)
+        {
+            return null;
+        }
+
+        var format = a.Format;
+        var what = double.IsInfinity(a.DesignedDcGain)
+            ? $"loses the integrator: its DC gain is {N(a.DirectDcGain)} instead of infinite"
+            : $"implements a DC gain of {N(a.DirectDcGain)} instead of {N(a.DesignedDcGain)} ({(Math.Sign(a.DirectDcGain) != Math.Sign(a.DesignedDcGain) ? "the wrong sign" : $"{N(a.DirectErrorPercent)} % off")})";
+        return a.SectionsErrorPercent <= DirectFormAccuracy.TolerancePercent
+            ? $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; cascaded second-order sections stored the same way keep the DC gain within {N(a.SectionsErrorPercent)} %. Implement the sections, not the single difference equation."
+            : $"ONE DIRECT FORM IN {format.ToString().ToUpperInvariant()} {what}, its poles moved by up to {N(a.DirectPoleShift)}; even cascaded second-order sections in {format} implement a DC gain of {N(a.SectionsDcGain)}. Implement the sections in a wider format, or sample more slowly if the loop allows it.";
     }
 
     /// <summary>The machine interface: numerator/denominator ascending in z⁻¹ (a0 = 1), method, sampleTime.</summary>
@@ -111,24 +135,12 @@ public static class DiscreteReport
             JsonNumbers.WriteComplexArray(w, "poles", d.Poles);
             JsonNumbers.Write(w, "dcGain", d.DcGain);
             w.WriteString("gainMatching", result.GainMatching);
-            w.WriteStartArray("sections");
-            foreach (var q in SectionSplitter.Split(d))
-            {
-                w.WriteStartObject();
-                w.WriteNumber("b0", q.B0);
-                w.WriteNumber("b1", q.B1);
-                w.WriteNumber("b2", q.B2);
-                w.WriteNumber("a1", q.A1);
-                w.WriteNumber("a2", q.A2);
-                w.WriteEndObject();
-            }
-
-            w.WriteEndArray();
+            WriteSections(w, "sections", SectionSplitter.Split(d));
+            var accuracies = Accuracies(d);
             w.WriteStartObject("directForm");
-            foreach (var (key, format) in new[] { ("double", NumberFormat.Double), ("float", NumberFormat.Float) })
+            foreach (var a in accuracies)
             {
-                var a = DirectFormAccuracy.Of(d, format);
-                w.WriteStartObject(key);
+                w.WriteStartObject(a.Format.ToString());
                 JsonNumbers.Write(w, "dcGain", a.DirectDcGain);
                 JsonNumbers.Write(w, "sectionsDcGain", a.SectionsDcGain);
                 JsonNumbers.Write(w, "dcGainErrorPercent", a.DirectErrorPercent);
@@ -139,7 +151,7 @@ public static class DiscreteReport
 
             w.WriteEndObject();
             w.WriteStartArray("warnings");
-            foreach (var warning in result.Warnings.Concat(DirectFormWarnings(d)))
+            foreach (var warning in result.Warnings.Concat(accuracies.Select(Warning).OfType<string>()))
             {
                 w.WriteStringValue(warning);
             }

@@ -14,7 +14,7 @@ namespace CompAssist.Core.Tests.Simulation;
 /// </summary>
 public class SampledControllerLoopTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+    private static TransferFunction Parse(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
 
     /// <summary>A direct-form filter of C(z) written here, fed the error r − m: the law of a linear sampled controller.</summary>
     private static SampledControllerLoop.Law Linear(DiscreteTransferFunction c)
@@ -52,8 +52,8 @@ public class SampledControllerLoopTests
     [InlineData("9/(s^2+0.6s+9)", "1", "0.8(s+3)/(s+6)", 0.02, 0.0, false)]
     public void Run_LinearController_MatchesTheZDomainProofAtTheSamplingInstants(string plant, string sensor, string compensator, double t, double delay, bool computationDelay)
     {
-        var loop = Loop.Create(Tf(delay > 0 ? $"({plant}) exp(-{delay.ToString(System.Globalization.CultureInfo.InvariantCulture)}s)" : plant), Tf(sensor));
-        var c = Discretizer.Discretize(Tf(compensator), t, DiscretizationMethod.Tustin).Value!.Discrete;
+        var loop = Loop.Create(Parse(delay > 0 ? $"({plant}) exp(-{delay.ToString(System.Globalization.CultureInfo.InvariantCulture)}s)" : plant), Parse(sensor));
+        var c = Discretizer.Discretize(Parse(compensator), t, DiscretizationMethod.Tustin).Value!.Discrete;
         var proof = SampledLoop.Prove(loop, c, computationDelay, samples: 400);
         Assert.True(proof.Stable);
         var run = SampledControllerLoop.Run(loop, Linear(c), t, periods: 400, subSteps: 5, computationDelay, reference: 1.0, loadDisturbance: 0.0);
@@ -68,7 +68,7 @@ public class SampledControllerLoopTests
     {
         // Open loop (a law that returns a constant command): the output is the plant's step delayed by 0.137 s,
         // read between the samples: y(t) = 1 − e^{−(t − 0.137)} after the delay.
-        var loop = Loop.Create(Tf("exp(-0.137s)/(s+1)"));
+        var loop = Loop.Create(Parse("exp(-0.137s)/(s+1)"));
         var run = SampledControllerLoop.Run(loop, (_, _) => 1.0, 0.1, periods: 30, subSteps: 4, computationDelay: false, reference: 0.0, loadDisturbance: 0.0);
         for (var k = 0; k < run.Output.Values.Length - 1; k++)
         {
@@ -82,7 +82,7 @@ public class SampledControllerLoopTests
     public void Run_LoadDisturbanceAndOperatingPoint_EnterAtThePlantInput()
     {
         // A law that holds the operating point: the plant sees only the load step, 2/(s+2) · 0.5/s → 0.5.
-        var loop = Loop.Create(Tf("2/(s+2)"));
+        var loop = Loop.Create(Parse("2/(s+2)"));
         var run = SampledControllerLoop.Run(loop, (_, _) => 40.0, 0.05, periods: 200, subSteps: 1, computationDelay: false, reference: 0.0, loadDisturbance: 0.5, operatingPoint: 40.0);
         Tolerance.Close(0.5 * (1 - Math.Exp(-2 * 0.05 * 7)), run.Output.Values[7], 1e-12);
         Tolerance.Close(0.5, run.Output.Values[^1], 1e-6);
