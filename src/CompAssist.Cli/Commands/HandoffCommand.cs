@@ -17,7 +17,7 @@ internal static class HandoffCommand
         var prewarp = new RealOption("--prewarp-frequency") { Description = "Pre-warp frequency in rad/s." };
         var delay = new Option<bool>("--computation-delay") { Description = "The command is applied one sample after the measurement is read." };
         var format = new Option<string>("--format") { Description = "Coefficient storage: double, float, or fixedN (N-bit words; code up to 24 bits).", DefaultValueFactory = _ => "double" };
-        var signalBits = new WholeOption("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default half the word)." };
+        var signalBits = new WholeOption("--signal-fraction-bits") { Description = "Fixed point: fractional bits of the signals (default: half the word for the section cascade; a PID sizes its inputs from the test reference and its command from the output limits)." };
         var antiWindup = new Option<string>("--anti-windup") { Description = "PID anti-windup: clamping (the default) or back-calculation." };
         var derivativeOn = new Option<string>("--derivative-on") { Description = "PID derivative on the measurement (the default: no kick on reference steps) or on the error (as designed)." };
         var name = new Option<string>("--name") { Description = "C identifier of the controller.", DefaultValueFactory = _ => "compassist_ctrl" };

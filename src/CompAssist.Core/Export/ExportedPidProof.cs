@@ -119,28 +119,29 @@ public sealed record ExportedPidProof(
         return new ExportedPidProof(controller, path, linear, pm, metrics, reference, r, d, disturbance, checks);
     }
 
-    /// <summary>C_y(z) = Kp + Ki·T/(z − 1) + Kd·(z − 1)/((Tf + T)·z − Tf) for the controller's gains and sample time.</summary>
+    /// <summary>
+    /// C_y(z) = Kp + Ki·T/(z − 1) + b·(z − 1)/(z − a), a = Tf/(Tf + T), b = Kd/(Tf + T), from the coefficients as the
+    /// exported code stores them (<see cref="PidImplementation.StoredCoefficients"/>).
+    /// </summary>
     public static DiscreteTransferFunction FeedbackPathOf(PidImplementation controller)
     {
         ArgumentNullException.ThrowIfNull(controller);
-        var f = controller.Forms;
+        var (kp, integralStep, a, b) = controller.StoredCoefficients();
         var t = controller.SampleTime;
         var zMinusOne = Polynomial.FromAscending([-1.0, 1.0]);
-        var numerator = Polynomial.Constant(f.Kp);
+        var numerator = Polynomial.Constant(kp);
         var denominator = Polynomial.One;
-        if (f.Ki != 0)
+        if (integralStep != 0)
         {
             // Kp + Ki·T/(z − 1) = (Kp·(z − 1) + Ki·T)/(z − 1).
-            numerator = (numerator * zMinusOne) + Polynomial.Constant(f.Ki * t);
+            numerator = (numerator * zMinusOne) + Polynomial.Constant(integralStep);
             denominator = zMinusOne;
         }
 
-        if (f.Kd != 0)
+        if (b != 0)
         {
-            // + Kd/(Tf + T) · (z − 1)/(z − a), a = Tf/(Tf + T).
-            var a = f.Tf / (f.Tf + t);
             var filter = Polynomial.FromAscending([-a, 1.0]);
-            numerator = (numerator * filter) + (denominator * zMinusOne * (f.Kd / (f.Tf + t)));
+            numerator = (numerator * filter) + (denominator * zMinusOne * b);
             denominator *= filter;
         }
 

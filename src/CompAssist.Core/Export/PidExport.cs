@@ -14,7 +14,7 @@ namespace CompAssist.Core.Export;
 /// <summary>
 /// The hand-off's PID part for PI, PD and PID designs: the controller as firmware runs it (double or float), its
 /// C code, a closed-loop test vector, its proof in closed loop (<see cref="ExportedPidProof"/>) and the report's
-/// section on it. Fixed point is refused with its reason.
+/// section on it. In fixed point (words up to 24 bits) the controller is the integer model <see cref="FixedPointPid"/>.
 /// </summary>
 internal static class PidExport
 {
@@ -39,35 +39,45 @@ internal static class PidExport
             return new Part(files.ToImmutable(), ignored, null);
         }
 
-        if (options.Format.Kind == NumberFormatKind.Fixed)
-        {
-            return new Part(files.ToImmutable(), $"NO PID CODE for {options.Format}: the PID is exported in double or float only (its integral and filter states need more range than one fixed-point signal format keeps), so the anti-windup setting has no effect here; the section cascade implements C(z) without output limits. Export with the double or float format for the PID.", null);
-        }
-
         var effort = report.Check.EffortFigures;
         var limits = effort.AbsoluteLimits;
         var single = options.Format.Kind == NumberFormatKind.Float;
-        var pid = new PidImplementation(forms, t, limits?.Low ?? -1e9, limits?.High ?? 1e9, options.AntiWindup ?? AntiWindup.Clamping, operatingPoint: effort.OperatingPoint, singlePrecision: single, derivativeOnError: options.DerivativeOnError);
+        var room = effort.Room;
+        // A reference large enough that the first command (Kp·r, derivative on the measurement) saturates.
+        var saturating = Math.Max(3 * effort.ReferenceStep, room is { } r && forms.Kp != 0 ? 2 * Math.Max(r.High, -r.Low) / Math.Abs(forms.Kp) : 0);
+        PidImplementation Real(bool onError) =>
+            new(forms, t, limits?.Low ?? -1e9, limits?.High ?? 1e9, options.AntiWindup ?? AntiWindup.Clamping, operatingPoint: effort.OperatingPoint, singlePrecision: single, derivativeOnError: onError);
+        Func<bool, PidImplementation> make = Real;
+        var pid = Real(options.DerivativeOnError);
+        if (options.Format.Kind == NumberFormatKind.Fixed)
+        {
+            var scaling = FixedScaling(options, pid, saturating, effort);
+            if (scaling.Refusal is { } refusal)
+            {
+                return new Part(files.ToImmutable(), $"NO PID CODE for {options.Format}: {refusal}; the section cascade implements C(z) without output limits.", null);
+            }
+
+            make = onError => Real(onError).InFixedPoint(options.Format.WordBits, scaling.Input, scaling.Output);
+            pid = make(options.DerivativeOnError);
+        }
+
         var name = options.Name + "_pid";
-        var (header, source) = PidCodeGenerator.Generate(name, pid, origin);
+        var (header, source) = pid.FixedPoint is null ? PidCodeGenerator.Generate(name, pid, origin) : FixedPointPidCodeGenerator.Generate(name, pid, origin);
         files.Add($"{name}.h", header);
         files.Add($"{name}.c", source);
         var proof = ExportedPidProof.Run(report.Design.Loop, report.Check, pid, options.ComputationDelay);
         if (!proof.Meets && forms.Kd != 0)
         {
             // The other place for the derivative: when it meets, that is the recommendation.
-            var other = new PidImplementation(forms, t, pid.UMin, pid.UMax, pid.AntiWindup, operatingPoint: pid.OperatingPoint, singlePrecision: single, derivativeOnError: !options.DerivativeOnError);
+            var other = make(!options.DerivativeOnError);
             var alternative = ExportedPidProof.Run(report.Design.Loop, report.Check, other, options.ComputationDelay);
             proof = proof with { Alternative = alternative.Meets ? alternative : null };
         }
 
-        // A reference large enough that the first command (Kp·r, derivative on the measurement) saturates.
-        var room = effort.Room;
-        var saturating = Math.Max(3 * report.Check.EffortFigures.ReferenceStep, room is { } r && forms.Kp != 0 ? 2 * Math.Max(r.High, -r.Low) / Math.Abs(forms.Kp) : 0);
         files.Add($"{name}-vectors.csv", Vectors(pid, report.Design.Loop, options.ComputationDelay, saturating));
         var range = limits is null ? "±1e9 (no actuator limit was given, so anti-windup never acts: give the limits)" : $"{F(limits.Low)} … {F(limits.High)} absolute";
         var verdict = proof.Meets ? "as exported it meets the requirements the continuous loop meets" : $"as exported it FAILS: {Binding(proof)}{(proof.Alternative is { } alt ? $"; with the derivative on the {(alt.Controller.DerivativeOnError ? "error" : "measurement")} it meets (overshoot {F(alt.Reference.OvershootPercent)} %, 2 % settling {F(alt.Reference.SettlingTime2Percent)} s): choose that" : string.Empty)}";
-        var note = $"PID form: {(single ? "float" : "double")}, positional, derivative on the {(pid.DerivativeOnError ? "error" : "measurement")}, operating point u0 = {F(pid.OperatingPoint)}, output limits {range}, anti-windup {Name(pid.AntiWindup)}; {verdict}.";
+        var note = $"PID form: {Arithmetic(pid)}, positional, derivative on the {(pid.DerivativeOnError ? "error" : "measurement")}, operating point u0 = {F(pid.OperatingPoint)}, output limits {range}, anti-windup {Name(pid.AntiWindup)}; {verdict}.";
         return new Part(files.ToImmutable(), note, proof);
     }
 
@@ -83,7 +93,7 @@ internal static class PidExport
         var pid = proof.Controller;
         sb.AppendLine("## The PID as exported");
         sb.AppendLine();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"The exported PID run in closed loop with the continuous plant (zero-order hold, delays exact, output read between the samples): {(pid.SinglePrecision ? "float" : "double")} arithmetic, derivative on the {(pid.DerivativeOnError ? "error" : "measurement")}, output clamped to [{F(pid.UMin)}, {F(pid.UMax)}] about u0 = {F(pid.OperatingPoint)}, anti-windup {Name(pid.AntiWindup)}; a reference step of {F(proof.ReferenceStep)} and, apart, a load step of {F(proof.Disturbance)} at the plant input.");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"The exported PID run in closed loop with the continuous plant (zero-order hold, delays exact, output read between the samples): {Arithmetic(pid)} arithmetic, derivative on the {(pid.DerivativeOnError ? "error" : "measurement")}, output clamped to [{F(pid.UMin)}, {F(pid.UMax)}] about u0 = {F(pid.OperatingPoint)}, anti-windup {Name(pid.AntiWindup)}; a reference step of {F(proof.ReferenceStep)} and, apart, a load step of {F(proof.Disturbance)} at the plant input.");
         sb.AppendLine();
         sb.AppendLine("| | C(s) continuous | C(z) sections, sampled | PID as exported |");
         sb.AppendLine("|---|---|---|---|");
@@ -144,7 +154,13 @@ internal static class PidExport
     {
         var pid = proof.Controller;
         w.WriteStartObject("pidAsExported");
-        w.WriteString("arithmetic", pid.SinglePrecision ? "float" : "double");
+        w.WriteString("arithmetic", pid.FixedPoint is { } x ? $"fixed{x.WordBits}" : (pid.SinglePrecision ? "float" : "double"));
+        if (pid.FixedPoint is { } fixedPoint)
+        {
+            w.WriteNumber("inputFractionBits", fixedPoint.InputFractionBits);
+            w.WriteNumber("outputFractionBits", fixedPoint.OutputFractionBits);
+        }
+
         w.WriteString("antiWindup", Name(pid.AntiWindup));
         w.WriteString("derivativeOn", pid.DerivativeOnError ? "error" : "measurement");
         JsonNumbers.Write(w, "operatingPoint", pid.OperatingPoint);
@@ -174,6 +190,15 @@ internal static class PidExport
         w.WriteEndObject();
     }
 
+    /// <summary>The controller's arithmetic as the report writes it ("double", "float", "fixed16 (…)").</summary>
+    public static string Arithmetic(PidImplementation pid)
+    {
+        ArgumentNullException.ThrowIfNull(pid);
+        return pid.FixedPoint is { } x
+            ? $"fixed{x.WordBits} (reference and measurement with {x.InputFractionBits} fractional bits, command with {x.OutputFractionBits}, states with {x.GuardBits} more)"
+            : (pid.SinglePrecision ? "float" : "double");
+    }
+
     /// <summary>The scheme's name as the report writes it.</summary>
     public static string Name(AntiWindup scheme) => scheme switch
     {
@@ -190,21 +215,61 @@ internal static class PidExport
     {
         var twin = pid.Twin();
         var k = 0;
-        double Law(double r, double m) => twin.Step(r, k++ == 200 ? double.NaN : m);
+        var engine = pid.FixedPoint;
+        var faultRow = engine is null ? 200 : -1;
+        double Law(double r, double m) => twin.Step(r, k++ == faultRow ? double.NaN : m);
         var run = SampledControllerLoop.Run(loop, Law, pid.SampleTime, VectorSamples, 1, computationDelay, reference, 0.0, pid.OperatingPoint);
         string V(double x) => double.IsNaN(x) ? "nan" : (pid.SinglePrecision ? ((float)x).ToString("R", CultureInfo.InvariantCulture) : x.ToString("R", CultureInfo.InvariantCulture));
+        string In(double x) => engine is null ? V(x) : engine.ToInput(x).ToString(CultureInfo.InvariantCulture);
+        string Out(double x) => engine is null ? V(x) : Math.Round(x * Math.Pow(2, engine.OutputFractionBits)).ToString(CultureInfo.InvariantCulture);
         var sb = new StringBuilder();
-        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist PID test vector ({(pid.SinglePrecision ? "float" : "double")}, positional, derivative on the measurement, sample time {pid.SampleTime:R} s): a saturating closed-loop run on the plant. Feed reference and measurement to");
-        sb.AppendLine("# <name>_pid_step from <name>_pid_init, one row per sample; 'expected' is the command, bit for bit. Row 200 is a failed sensor read (nan):");
-        sb.AppendLine("# the step returns the previous command and sets the fault flag, and the run goes on. Not a safety function.");
+        sb.AppendLine(CultureInfo.InvariantCulture, $"# CompAssist PID test vector ({Arithmetic(pid)}, positional, derivative on the {(pid.DerivativeOnError ? "error" : "measurement")}, sample time {pid.SampleTime:R} s): a saturating closed-loop run on the plant.");
+        sb.AppendLine("# Feed reference and measurement to <name>_pid_step from <name>_pid_init, one row per sample; 'expected' is the command, bit for bit.");
+        sb.AppendLine(engine is null
+            ? "# Row 200 is a failed sensor read (nan): the step returns the previous command and sets the fault flag, and the run goes on. Not a safety function."
+            : "# Every value is the signal's integer (value = integer / 2^fractional bits, see the header). Not a safety function.");
         sb.AppendLine("k,reference,measurement,expected");
         for (var i = 0; i < run.Commands.Length; i++)
         {
-            var measured = i == 200 ? double.NaN : run.Measurements[i];
-            sb.AppendLine(CultureInfo.InvariantCulture, $"{i},{V(reference)},{V(measured)},{V(run.Commands[i])}");
+            var measured = i == faultRow ? double.NaN : run.Measurements[i];
+            sb.AppendLine(CultureInfo.InvariantCulture, $"{i},{In(reference)},{In(measured)},{Out(run.Commands[i])}");
         }
 
         return sb.ToString();
+    }
+
+    /// <summary>The fractional bits of the fixed-point PID's inputs and command, or why there is no fixed-point PID.</summary>
+    private static (int Input, int Output, string? Refusal) FixedScaling(HandoffOptions options, PidImplementation pid, double saturating, EffortFigures effort)
+    {
+        var w = options.Format.WordBits;
+        if (w > FixedPointPid.MaxWordBits)
+        {
+            return (0, 0, $"the fixed-point PID supports words up to {FixedPointPid.MaxWordBits} bits (64-bit states without overflow)");
+        }
+
+        // Inputs: twice the saturating test reference; the command: the limits, or (none given) four times the linear peak about u0.
+        var inputRange = 2 * Math.Max(saturating, Math.Abs(effort.ReferenceStep));
+        var outputRange = effort.AbsoluteLimits is { } l
+            ? Math.Max(Math.Abs(l.Low), Math.Abs(l.High))
+            : Math.Abs(pid.OperatingPoint) + (4 * (double.IsFinite(effort.Peak) && effort.Peak > 0 ? effort.Peak : 1.0));
+        int Bits(double range) => Math.Clamp((int)Math.Floor(Math.Log2(((1L << (w - 1)) - 1) / range)), 0, w - 1);
+        var input = options.SignalFractionBits ?? Bits(inputRange);
+        var output = options.SignalFractionBits ?? Bits(outputRange);
+        if (outputRange * Math.Pow(2, output) > (1L << (w - 1)) - 1)
+        {
+            return (0, 0, $"the command range ±{F(outputRange)} does not fit a {w}-bit word with {output} fractional bits (use a longer word{(options.SignalFractionBits is null ? string.Empty : " or fewer fractional bits")})");
+        }
+
+        try
+        {
+            _ = pid.InFixedPoint(w, input, output);
+        }
+        catch (ArgumentException e)
+        {
+            return (0, 0, e.Message.Split(" (Parameter", 2)[0]);
+        }
+
+        return (input, output, null);
     }
 
     private static bool Differs(double a, double b) =>

@@ -13,7 +13,9 @@ namespace CompAssist.Core.Export;
 /// sum of its increments, starting from u0. A non-finite reference or measurement (a failed sensor read) leaves
 /// every state as it was, returns the last output (u0 before the first good sample) and sets <see cref="Fault"/>.
 /// With <see cref="SinglePrecision"/> every operation is done in IEEE single precision in the order the exported
-/// float C code does it, so the reference reproduces that code bit for bit.
+/// float C code does it, so the reference reproduces that code bit for bit. With <see cref="FixedPoint"/> the
+/// controller runs the integer model of the fixed-point export (inputs rounded to its input format, the command
+/// returned as the real value of its integer).
 /// </summary>
 public sealed class PidImplementation
 {
@@ -96,6 +98,9 @@ public sealed class PidImplementation
     /// <summary>Back-calculation tracking time Tt, seconds (common practice: √(Ti·Td), or Ti/2 without derivative).</summary>
     public double TrackingTime { get; }
 
+    /// <summary>The integer model this controller runs, when it is exported in fixed point; null in double or float.</summary>
+    public FixedPointPid? FixedPoint { get; private init; }
+
     /// <summary>True once a non-finite reference or measurement was given (the exported code's fault flag).</summary>
     public bool Fault { get; private set; }
 
@@ -110,7 +115,50 @@ public sealed class PidImplementation
     }
 
     /// <summary>A fresh controller with the same settings (states at rest).</summary>
-    public PidImplementation Twin() => new(Forms, SampleTime, UMin, UMax, AntiWindup, TrackingTime, Incremental, OperatingPoint, SinglePrecision, DerivativeOnError);
+    public PidImplementation Twin()
+    {
+        var twin = new PidImplementation(Forms, SampleTime, UMin, UMax, AntiWindup, TrackingTime, Incremental, OperatingPoint, SinglePrecision, DerivativeOnError) { FixedPoint = FixedPoint?.Twin() };
+        twin.Reset();
+        return twin;
+    }
+
+    /// <summary>
+    /// This controller in fixed point: <paramref name="wordBits"/>-bit words, the reference and measurement with
+    /// <paramref name="inputFractionBits"/> fractional bits, the command with <paramref name="outputFractionBits"/>
+    /// (its limits and u0 rounded to that resolution).
+    /// </summary>
+    /// <exception cref="ArgumentException">The formats do not fit the word (see <see cref="FixedPointPid.Create"/>).</exception>
+    public PidImplementation InFixedPoint(int wordBits, int inputFractionBits, int outputFractionBits)
+    {
+        var engine = FixedPointPid.Create(this, wordBits, inputFractionBits, outputFractionBits);
+        var pid = new PidImplementation(Forms, SampleTime, engine.ToReal(engine.Low), engine.ToReal(engine.High), AntiWindup, TrackingTime, Incremental, engine.ToReal(engine.OperatingPoint), singlePrecision: false, DerivativeOnError) { FixedPoint = engine };
+        pid.Reset();
+        return pid;
+    }
+
+    /// <summary>
+    /// The coefficients as the exported code stores them, in real units: Kp, Ki·T, the derivative filter's
+    /// a = Tf/(Tf + T) and b = Kd/(Tf + T) (each rounded to float in single precision; in fixed point, the value of
+    /// its mantissa and shift).
+    /// </summary>
+    public (double Kp, double IntegralStep, double FilterPole, double DerivativeStep) StoredCoefficients()
+    {
+        var f = Forms;
+        var t = SampleTime;
+        if (FixedPoint is { } x)
+        {
+            var toState = Math.Pow(2, x.OutputFractionBits + x.GuardBits - x.InputFractionBits);
+            return (x.Proportional.Value / toState, x.IntegralStep.Value / toState, x.FilterPole.Value, x.DerivativeGain.Value / toState);
+        }
+
+        if (SinglePrecision)
+        {
+            float kp = (float)f.Kp, ki = (float)f.Ki, kd = (float)f.Kd, tf = (float)f.Tf, ts = (float)t;
+            return (kp, ki * ts, tf / (tf + ts), kd / (tf + ts));
+        }
+
+        return (f.Kp, f.Ki * t, f.Tf / (f.Tf + t), f.Kd / (f.Tf + t));
+    }
 
     /// <summary>Back to rest, fault cleared (the exported reset).</summary>
     public void Reset()
@@ -123,6 +171,7 @@ public sealed class PidImplementation
         _last = Round(OperatingPoint);
         _started = false;
         Fault = false;
+        FixedPoint?.Reset();
     }
 
     /// <summary>One sample: reference r and measurement y in, clamped command out (the last one held on a non-finite input).</summary>
@@ -132,6 +181,11 @@ public sealed class PidImplementation
         {
             Fault = true;
             return _last;
+        }
+
+        if (FixedPoint is { } engine)
+        {
+            return _last = engine.ToReal(engine.Step(engine.ToInput(reference), engine.ToInput(measurement)));
         }
 
         return _last = SinglePrecision ? Compute<float>(reference, measurement) : Compute<double>(reference, measurement);

@@ -33,23 +33,12 @@ public class FixedPointCodeGeneratorTests
             Assert.Contains(expected, v => v == max || v == -max - 1);
         }
 
-        var directory = Directory.CreateTempSubdirectory("compassist-q-").FullName;
-        try
-        {
-            var (header, source) = FixedPointCodeGenerator.Generate("q_ctrl", cascade, t, "test");
-            File.WriteAllText(Path.Combine(directory, "q_ctrl.h"), header);
-            File.WriteAllText(Path.Combine(directory, "q_ctrl.c"), source);
-            var values = string.Join(",\n", input.Select(v => v.ToString(CultureInfo.InvariantCulture)));
-            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <stdio.h>\n#include \"q_ctrl.h\"\nstatic const int32_t input[] = {\n" + values + "\n};\nint main(void)\n{\n    q_ctrl_state s;\n    unsigned i;\n    q_ctrl_init(&s);\n    for (i = 0; i < sizeof input / sizeof input[0]; ++i) {\n        printf(\"%ld\\n\", (long)q_ctrl_step(&s, input[i]));\n    }\n    return 0;\n}\n");
-            CCompiler.Compile(directory, "-O2", "main.c q_ctrl.c");
-            var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output
-                .Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => long.Parse(v, CultureInfo.InvariantCulture)).ToArray();
-            Assert.Equal(expected, outputs);
-        }
-        finally
-        {
-            Directory.Delete(directory, recursive: true);
-        }
+        var (header, source) = FixedPointCodeGenerator.Generate("q_ctrl", cascade, t, "test");
+        var values = string.Join(",\n", input.Select(v => v.ToString(CultureInfo.InvariantCulture)));
+        var main = "#include <stdio.h>\n#include \"q_ctrl.h\"\nstatic const int32_t input[] = {\n" + values + "\n};\nint main(void)\n{\n    q_ctrl_state s;\n    unsigned i;\n    q_ctrl_init(&s);\n    for (i = 0; i < sizeof input / sizeof input[0]; ++i) {\n        printf(\"%ld\\n\", (long)q_ctrl_step(&s, input[i]));\n    }\n    return 0;\n}\n";
+        var outputs = CCompiler.BuildAndRun(new Dictionary<string, string> { ["q_ctrl.h"] = header, ["q_ctrl.c"] = source, ["main.c"] = main })
+            .Select(v => long.Parse(v, CultureInfo.InvariantCulture)).ToArray();
+        Assert.Equal(expected, outputs);
     }
 
     [Fact]

@@ -34,6 +34,8 @@ public class PidExportTests
     [InlineData("double", false)]
     [InlineData("float", false)]
     [InlineData("float", true)]
+    [InlineData("fixed16", false)]
+    [InlineData("fixed24", true)]
     public void Build_HeaterPid_CompiledCodeReproducesTheClosedLoopVectorBitForBit(string format, bool onError)
     {
         var options = new HandoffOptions { Name = "heat", Format = NumberFormat.TryParse(format)!, DerivativeOnError = onError, AntiWindup = AntiWindup.BackCalculation };
@@ -42,11 +44,16 @@ public class PidExportTests
         var rows = package.Files["heat_pid-vectors.csv"].Split('\n', StringSplitOptions.RemoveEmptyEntries)
             .Where(l => char.IsAsciiDigit(l[0])).Select(l => l.Split(',')).ToList();
         Assert.Equal(PidExport.VectorSamples, rows.Count);
-        Assert.Equal("nan", rows[200][2]);
+        var integers = package.Pid!.Controller.FixedPoint is { } engine;
         // A float vector prints each float's shortest round-trip text: read it back as a float.
         var expected = rows.Select(r => format == "float" ? float.Parse(r[3], CultureInfo.InvariantCulture) : double.Parse(r[3], CultureInfo.InvariantCulture)).ToList();
-        Assert.Contains(100.0, expected);
-        Assert.Equal(expected[199], expected[200]);
+        Assert.Contains(integers ? package.Pid.Controller.FixedPoint!.High : 100.0, expected);
+        if (!integers)
+        {
+            // Integers cannot carry a failed read: only the real-valued vectors have one.
+            Assert.Equal("nan", rows[200][2]);
+            Assert.Equal(expected[199], expected[200]);
+        }
 
         var directory = Directory.CreateTempSubdirectory("compassist-pid-export-").FullName;
         try
@@ -54,7 +61,8 @@ public class PidExportTests
             File.WriteAllText(Path.Combine(directory, "heat_pid.h"), package.Files["heat_pid.h"]);
             File.WriteAllText(Path.Combine(directory, "heat_pid.c"), package.Files["heat_pid.c"]);
             var calls = string.Join("\n", rows.Select(r => $"    printf(\"%.17g\\n\", (double)heat_pid_step(&s, {r[1]}, {(r[2] == "nan" ? "NAN" : r[2])}));"));
-            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <math.h>\n#include <stdio.h>\n#include \"heat_pid.h\"\nint main(void)\n{\n    heat_pid_state s;\n    heat_pid_init(&s);\n" + calls + "\n    printf(\"%d\\n\", s.fault);\n    return 0;\n}\n");
+            var fault = integers ? "1" : "s.fault";
+            File.WriteAllText(Path.Combine(directory, "main.c"), "#include <math.h>\n#include <stdio.h>\n#include \"heat_pid.h\"\nint main(void)\n{\n    heat_pid_state s;\n    heat_pid_init(&s);\n" + calls + $"\n    printf(\"%d\\n\", {fault});\n    return 0;\n}}\n");
             CCompiler.Compile(directory, "-O2", "main.c heat_pid.c");
             var outputs = CCompiler.Run(Path.Combine(directory, "test"), string.Empty, directory).Output
                 .Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(v => double.Parse(v, CultureInfo.InvariantCulture)).ToList();
@@ -88,12 +96,28 @@ public class PidExportTests
     }
 
     [Fact]
-    public void Build_FixedPointPid_RefusedWithItsReasonAndNoPidFiles()
+    public void Build_FixedPointPidBeyondTwentyFourBits_RefusedWithItsReasonAndNoPidFiles()
     {
-        var package = HandoffPackage.Build(Heater(), new HandoffOptions { Name = "heat", Format = NumberFormat.TryParse("fixed16")! }, "heater").Value!;
+        var package = HandoffPackage.Build(Heater(), new HandoffOptions { Name = "heat", Format = NumberFormat.TryParse("fixed32")! }, "heater").Value!;
         Assert.Null(package.Pid);
         Assert.DoesNotContain(package.Files.Keys, k => k.Contains("_pid", StringComparison.Ordinal));
-        Assert.Contains("NO PID CODE for fixed16", package.SampleTimeNote, StringComparison.Ordinal);
+        Assert.Contains("NO PID CODE for fixed32: the fixed-point PID supports words up to 24 bits", package.SampleTimeNote, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Build_HeaterPidInSixteenBits_ProvedAsTheIntegerModelAndCloseToDouble()
+    {
+        // The 0…100 % heater command fits 16 bits with 8 fractional bits; the fixed-point PID as exported must give
+        // nearly the figures of the double one (its input LSB 2^-7 of a unit reference step is the difference).
+        var fixedPoint = HandoffPackage.Build(Heater(), new HandoffOptions { Name = "heat", Format = NumberFormat.TryParse("fixed16")!, DerivativeOnError = true, SampleTime = 0.05 }, "heater").Value!.Pid!;
+        var real = HandoffPackage.Build(Heater(), new HandoffOptions { Name = "heat", DerivativeOnError = true, SampleTime = 0.05 }, "heater").Value!.Pid!;
+        var engine = fixedPoint.Controller.FixedPoint!;
+        Assert.Equal(8, engine.OutputFractionBits);
+        Assert.Equal(100 * 256, engine.High);
+        Assert.Equal(0, engine.Low);
+        Assert.True(fixedPoint.Meets, ExportedPidProof.Describe(fixedPoint));
+        Tolerance.Close(real.Reference.SettlingTime2Percent, fixedPoint.Reference.SettlingTime2Percent, 0.15, 0.0, "2 % settling");
+        Tolerance.Close(real.Reference.OvershootPercent, fixedPoint.Reference.OvershootPercent, 0.0, 1.0, "overshoot %");
     }
 
     [Fact]

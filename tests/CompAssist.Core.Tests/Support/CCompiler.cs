@@ -45,4 +45,27 @@ internal static class CCompiler
         var (code, _, error) = Run(Path(), $"-std=c99 -Wall -Wextra -Werror -pedantic {flags} -o test {sources}", directory);
         Assert.True(code == 0, error);
     }
+
+    /// <summary>
+    /// Writes <paramref name="files"/> (name → text, the generated code and the test's main.c) to a fresh folder,
+    /// compiles them with <see cref="Compile"/> and returns the program's standard output lines; the folder is removed.
+    /// </summary>
+    public static string[] BuildAndRun(IReadOnlyDictionary<string, string> files, string flags = "-O2")
+    {
+        var directory = Directory.CreateTempSubdirectory("compassist-c-").FullName;
+        try
+        {
+            foreach (var (name, text) in files)
+            {
+                File.WriteAllText(System.IO.Path.Combine(directory, name), text);
+            }
+
+            Compile(directory, flags, string.Join(' ', files.Keys.Where(k => k.EndsWith(".c", StringComparison.Ordinal))));
+            return Run(System.IO.Path.Combine(directory, "test"), string.Empty, directory).Output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        }
+        finally
+        {
+            Directory.Delete(directory, recursive: true);
+        }
+    }
 }
