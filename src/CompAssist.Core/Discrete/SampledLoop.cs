@@ -46,17 +46,19 @@ public static class SampledLoop
             warnings.Add("The sensor is sampled together with the plant (ZOH of G·H) for stability; the output step uses the ZOH of G alone.");
         }
 
-        // Characteristic polynomial in z: Dc·Dgh·z^d + σ·Nc·Ngh (numerators with their gains).
+        // The characteristic equation Dc·Dgh·z^d + σ·Nc·Ngh = 0 in the δ form z = 1 + T·δ (each factor z − p becomes
+        // T·(δ − (p − 1)/T)): at fast sampling the z-roots cluster at 1 and an expanded polynomial in z loses them to
+        // rounding (a slow loop at 0.1 ms came out "unstable", |z| = 1.0006), while the δ-roots stay apart, near the
+        // s-plane poles (common practice; Middleton and Goodwin, Digital Control and Estimation, 1990, on the δ operator).
         var sign = loop.SignFactor;
-        var dc = Polynomial.FromRoots(controller.Poles);
-        var nc = Polynomial.FromRoots(controller.Zeros, controller.Gain);
-        var dgh = Polynomial.FromRoots(path.Poles);
-        var ngh = Polynomial.FromRoots(path.Zeros, path.Gain);
-        var shift = Polynomial.FromRoots([.. Enumerable.Repeat(Complex.Zero, delaySamples)]);
-        var characteristic = (dc * dgh * shift) + (nc * ngh * sign);
-        var poles = RootFinder.Find(characteristic).Roots;
-        var largest = poles.Length == 0 ? 0.0 : poles.Max(z => z.Magnitude);
-        if (largest >= 1)
+        var characteristic = DeltaCharacteristic(controller, path, delaySamples, sign, out var openLoopAtOne);
+        var deltas = RootFinder.Find(characteristic).Roots;
+        var poles = deltas.Select(d => Complex.One + (t * d)).ToImmutableArray();
+        // |z|² − 1 = T·(2·Re δ + T·|δ|²), without the cancellation of forming |z| first.
+        var growth = deltas.Length == 0 ? -1.0 : deltas.Max(d => t * ((2 * d.Real) + (t * ((d.Real * d.Real) + (d.Imaginary * d.Imaginary)))));
+        var stable = growth < 0;
+        var largest = Math.Sqrt(Math.Max(0.0, 1 + growth));
+        if (!stable)
         {
             warnings.Add($"UNSTABLE when sampled: a closed-loop pole has |z| = {largest:G4} ≥ 1. Sample faster or redesign with the sampling delay in mind.");
         }
@@ -66,35 +68,54 @@ public static class SampledLoop
             warnings.Add("The plant has direct feedthrough; the sampled step treats it with one sample of delay.");
         }
 
-        // Final value: exact T(1) = Nc·Ng/char at z = 1 for unity feedback; otherwise the last sample.
+        // Final value: exact T(1) = Nc·Ng/char at z = 1 (δ = 0) for unity feedback; otherwise the last sample.
         var unity = loop.Feedback.Poles.Length == 0 && loop.Feedback.Zeros.Length == 0 && loop.Feedback.Gain == 1.0;
-        var exactFinal = largest >= 1 ? double.NaN
-            : unity ? (nc * Polynomial.FromRoots(plant.Zeros, plant.Gain)).Evaluate(1.0) / characteristic.Evaluate(1.0)
+        var exactFinal = !stable ? double.NaN
+            : unity ? openLoopAtOne / characteristic.Evaluate(0.0)
             : (double?)null;
-        var count = samples ?? InitialSamples(largest);
+        var count = samples ?? InitialSamples(growth);
         while (true)
         {
             var response = Step(controller, plant, path, sign, delaySamples, count);
             var final = exactFinal ?? response.Values[^1];
             var metrics = StepMetrics.Measure(response, double.IsNaN(final) ? 1.0 : final);
-            if (samples is not null || largest >= 1 || double.IsFinite(metrics.SettlingTime2Percent) || count >= MaxSamples)
+            if (samples is not null || !stable || double.IsFinite(metrics.SettlingTime2Percent) || count >= MaxSamples)
             {
-                return new SampledLoopProof(poles, largest, response, metrics, delaySamples, warnings.ToImmutable());
+                return new SampledLoopProof(poles, largest, response, metrics, delaySamples, warnings.ToImmutable()) { Stable = stable };
             }
 
             count = Math.Min(MaxSamples, count * 4);
         }
     }
 
-    private static int InitialSamples(double largest)
+    // Samples for 12 time constants of the slowest pole: −T/ln|z| = −2T/ln(1 + growth), growth = |z|² − 1.
+    private static int InitialSamples(double growth)
     {
-        if (!(largest < 1) || largest == 0)
+        if (!(growth < 0) || growth <= -1)
         {
             return MinSamples;
         }
 
-        var wanted = SlowestTimeConstants / -Math.Log(largest);
+        var wanted = SlowestTimeConstants * 2 / -Math.Log(1 + growth);
         return (int)Math.Clamp(Math.Ceiling(wanted), MinSamples, MaxSamples);
+    }
+
+    /// <summary>
+    /// The characteristic polynomial in δ, Π(δ − qp)·(1 + T·δ)^d + σ·kc·kgh·T^(m − n)·Π(δ − qz), q = (p − 1)/T for
+    /// every pole and zero of C(z) and of the ZOH path; <paramref name="numeratorAtOne"/> is its second term's
+    /// Nc·Ngh part at δ = 0 (z = 1) on the same scale, for the final value.
+    /// </summary>
+    private static Polynomial DeltaCharacteristic(DiscreteTransferFunction controller, DiscreteTransferFunction path, int delaySamples, double sign, out double numeratorAtOne)
+    {
+        var t = controller.SampleTime;
+        Complex[] Q(IEnumerable<Complex> roots) => [.. roots.Select(p => (p - Complex.One) / t)];
+        var poles = Polynomial.FromRoots([.. Q(controller.Poles), .. Q(path.Poles)]);
+        var zeros = Polynomial.FromRoots([.. Q(controller.Zeros), .. Q(path.Zeros)]);
+        var excess = controller.Poles.Length + path.Poles.Length - controller.Zeros.Length - path.Zeros.Length;
+        var gain = controller.Gain * path.Gain * Math.Pow(t, -excess);
+        var shift = Polynomial.FromRoots([.. Enumerable.Repeat(new Complex(-1 / t, 0), delaySamples)], Math.Pow(t, delaySamples));
+        numeratorAtOne = gain * zeros.Evaluate(0.0);
+        return (poles * shift) + (zeros * (sign * gain));
     }
 
     /// <summary>The step at the sampling instants: e = r ∓ measurement, u = C e (delayed), y = G u.</summary>

@@ -19,8 +19,11 @@ public sealed record SampledLoopProof(
     int DelaySamples,
     ImmutableArray<string> Warnings)
 {
-    /// <summary>True when every closed-loop pole is inside the unit circle.</summary>
-    public bool Stable => LargestPoleMagnitude < 1.0;
+    /// <summary>
+    /// True when every closed-loop pole is inside the unit circle (decided on |z|² − 1 in the δ form, so a stable
+    /// pole within rounding of the circle still counts, though |z| may print as 1).
+    /// </summary>
+    public bool Stable { get; init; } = LargestPoleMagnitude < 1.0;
 
     /// <summary>The s-plane equivalents ln(z)/T of the closed-loop poles (principal branch).</summary>
     public ImmutableArray<Complex> EquivalentSPlanePoles => [.. ClosedLoopPoles.Select(z => z == Complex.Zero ? new Complex(double.NegativeInfinity, 0) : Complex.Log(z) / Step.SampleTime)];

@@ -1,6 +1,7 @@
 using System.Numerics;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Model;
+using CompAssist.Core.Numerics;
 using CompAssist.Core.Parsing;
 using CompAssist.Core.Proof;
 using CompAssist.Core.Targets;
@@ -66,5 +67,43 @@ public class SampledLoopTests
         Assert.InRange(continuous.Step.SettlingTime2Percent, 190, 225);
         Tolerance.Close(continuous.Step.SettlingTime2Percent, proof.Metrics.SettlingTime2Percent, 0.01, what: "sampled vs continuous settling");
         Assert.True(proof.Step.Values.Length > 20_000);
+    }
+
+    [Fact]
+    public void Prove_SlowLoopsAtFastSampleTimes_StableWithPolesNearTheContinuousOnes()
+    {
+        // Slow plants (poles 0.05…3 rad/s) under a PI at 0.1 ms and 1 ms: the z-poles cluster within 3e-4 of z = 1,
+        // where an expanded polynomial in z loses them (a heater loop at 0.1 ms came out "unstable", |z| = 1.0006).
+        // A different route: the continuous closed-loop poles, roots of Dg·Dc + Ng·Nc in s; at these rates every
+        // sampled pole's ln(z)/T must be near one of them (the hold's T/2 delay moves them by O(T)), and the loop stable.
+        var rng = new Random(17);
+        var loops = 0;
+        for (var i = 0; i < 80; i++)
+        {
+            var plantPoles = RandomRoots.Stable(rng, rng.Next(2, 5), 0.05, 3.0);
+            var plant = TransferFunction.FromFactors(plantPoles.Aggregate(Complex.One, (a, p) => a * -p).Real, [], plantPoles);
+            var slowest = plantPoles.Min(p => p.Magnitude);
+            var c = TransferFunction.FromFactors(0.2 + rng.NextDouble(), [new Complex(-0.5 * slowest, 0)], [Complex.Zero]);
+            var continuous = RootFinder.Find((plant.Denominator * c.Denominator) + (plant.Numerator * c.Numerator)).Roots;
+            if (continuous.Any(p => p.Real > -1e-3))
+            {
+                continue;
+            }
+
+            loops++;
+            foreach (var t in new[] { 1e-4, 1e-3 })
+            {
+                var d = Discretizer.Discretize(c, t, DiscretizationMethod.Tustin).Value!.Discrete;
+                var proof = SampledLoop.Prove(Loop.Create(plant), d, computationDelay: false, samples: 10);
+                Assert.True(proof.Stable, $"loop {i} at T = {t}: {plant} with {c} is stable in s, sampled largest |z| = {proof.LargestPoleMagnitude:R}");
+                foreach (var z in proof.EquivalentSPlanePoles.Where(p => p.Magnitude < 0.1 / t))
+                {
+                    var nearest = continuous.Min(p => (p - z).Magnitude);
+                    Assert.True(nearest <= (0.01 * z.Magnitude) + (2 * t * z.Magnitude * z.Magnitude) + 1e-6, $"loop {i} at T = {t}: sampled pole {z} is {nearest:G3} from the continuous ones");
+                }
+            }
+        }
+
+        Assert.True(loops >= 40, $"only {loops} stable loops drawn");
     }
 }
