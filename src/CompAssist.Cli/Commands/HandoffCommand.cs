@@ -138,7 +138,7 @@ internal static class HandoffCommand
 
             if (package.Value.Pid is { } pid)
             {
-                stdout.WriteLine($"  PID as exported: {(pid.Meets ? "meets" : "FAILS")} — overshoot {pid.Reference.OvershootPercent:G4} %, 2 % settling {pid.Reference.SettlingTime2Percent:G4} s, command u − u0 {pid.CommandLowest:G4} … {pid.CommandHighest:G4}, {100 * pid.SaturatedFraction:G3} % of samples on a limit");
+                stdout.WriteLine($"  PID as exported: {pid.Verdict} — overshoot {pid.Reference.OvershootPercent:G4} %, 2 % settling {pid.Reference.SettlingTime2Percent:G4} s, command u − u0 {pid.CommandLowest:G4} … {pid.CommandHighest:G4}, {100 * pid.SaturatedFraction:G3} % of samples on a limit");
                 if (!pid.Meets)
                 {
                     stdout.WriteLine($"    ✗ PID as exported: {Core.Export.ExportedPidProof.Describe(pid)}");

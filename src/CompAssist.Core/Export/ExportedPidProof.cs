@@ -45,6 +45,12 @@ public sealed record ExportedPidProof(
     /// <summary>The same controller with the derivative on the other signal, when this one fails and that one meets (the recommendation).</summary>
     public ExportedPidProof? Alternative { get; init; }
 
+    /// <summary>How many requirements the continuous loop itself fails (those are not re-checked on the exported PID).</summary>
+    public int ContinuousFailures { get; init; }
+
+    /// <summary>"meets", "meets what the continuous loop meets (the continuous loop fails N)" or "FAILS".</summary>
+    public string Verdict => !Meets ? "FAILS" : ContinuousFailures == 0 ? "meets" : $"meets what the continuous loop meets (the continuous loop fails {ContinuousFailures} requirement{(ContinuousFailures == 1 ? string.Empty : "s")})";
+
     /// <summary>True when the linear loop is stable and every requirement the continuous loop meets holds for the PID as exported.</summary>
     public bool Meets => Linear.Stable && Checks.All(c => c.Passes != false);
 
@@ -116,7 +122,7 @@ public sealed record ExportedPidProof(
         var disturbance = Simulate(loop, controller, periods, subSteps, computationDelay, 0.0, d);
         var stable = linear.Stable && reference.Output.Values.All(double.IsFinite);
         var checks = SampledChecks.Of(continuous, metrics, pm, stable);
-        return new ExportedPidProof(controller, path, linear, pm, metrics, reference, r, d, disturbance, checks);
+        return new ExportedPidProof(controller, path, linear, pm, metrics, reference, r, d, disturbance, checks) { ContinuousFailures = continuous.Checks.Count(c => c.Passes == false) };
     }
 
     /// <summary>

@@ -25,7 +25,7 @@ public static class HandoffSummary
         TextWrap.AppendTo(sb, $"sampled loop   {(proof.Stable ? "stable" : "UNSTABLE")}, largest |z| = {N(proof.LargestPoleMagnitude, 6)}, overshoot {N(proof.Metrics.OvershootPercent, 4)} %, 2 % settling {N(proof.Metrics.SettlingTime2Percent, 4)} s (ZOH plant{(proof.DelaySamples switch { 0 => string.Empty, 1 => ", 1 sample of delay", var d => $", {d} samples of delay" })})", string.Empty, "               ");
         if (package.Pid is { } pid)
         {
-            TextWrap.AppendTo(sb, $"PID exported   {(pid.Meets ? "meets" : "FAILS")}: overshoot {N(pid.Reference.OvershootPercent, 4)} %, 2 % settling {N(pid.Reference.SettlingTime2Percent, 4)} s, u − u0 {N(pid.CommandLowest, 4)} … {N(pid.CommandHighest, 4)}, {N(100 * pid.SaturatedFraction, 3)} % on a limit{(pid.Meets ? string.Empty : $" — {ExportedPidProof.Describe(pid)}")}", string.Empty, "               ");
+            TextWrap.AppendTo(sb, $"PID exported   {pid.Verdict}: overshoot {N(pid.Reference.OvershootPercent, 4)} %, 2 % settling {N(pid.Reference.SettlingTime2Percent, 4)} s, u − u0 {N(pid.CommandLowest, 4)} … {N(pid.CommandHighest, 4)}, {N(100 * pid.SaturatedFraction, 3)} % on a limit{(pid.Meets ? string.Empty : $" — {ExportedPidProof.Describe(pid)}")}", string.Empty, "               ");
         }
 
         sb.AppendLine("ladder         each value re-proved sampled (▶ this package):");

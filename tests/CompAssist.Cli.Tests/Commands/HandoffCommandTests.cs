@@ -121,6 +121,30 @@ public class HandoffCommandTests
     }
 
     [Fact]
+    public void Handoff_HeaterPidInFixedPoint_WritesIntegerPidCodeAndSaysWhatItMeets()
+    {
+        // A stricter overshoot than the demo's makes the continuous loop fail its settling time: the exported PID's
+        // verdict must say it keeps what the continuous loop meets, not plain "meets".
+        var folder = Directory.CreateTempSubdirectory("compassist-handoff-fixed-pid-").FullName;
+        try
+        {
+            var file = Path.Combine(CliRunner.RepositoryRoot(), "cases", "heater-stage.toml");
+            var (code, output, error) = CliRunner.Run("handoff", file, "--out", folder, "--format", "fixed16", "--derivative-on", "error", "--overshoot", "0.5", "--name", "heat");
+            Assert.True(code == 4, error);
+            Assert.Contains("PID as exported: meets what the continuous loop meets (the continuous loop fails 1 requirement)", output, StringComparison.Ordinal);
+            Assert.Contains("int32_t heat_pid_step(heat_pid_state *state, int32_t reference, int32_t measurement);", File.ReadAllText(Path.Combine(folder, "heat_pid.h")), StringComparison.Ordinal);
+            using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(folder, "heat.json")));
+            var pid = json.RootElement.GetProperty("pidAsExported");
+            Assert.Equal("fixed16", pid.GetProperty("arithmetic").GetString());
+            Assert.Equal(8, pid.GetProperty("outputFractionBits").GetInt32());
+        }
+        finally
+        {
+            Directory.Delete(folder, recursive: true);
+        }
+    }
+
+    [Fact]
     public void Handoff_GivenSampleTimeFailsSampled_ExitFourWithThePackageWrittenAndTheValueThatMeets()
     {
         // The belt-axis demo sampled at 0.2 s overshoots well beyond its 10 % (about 17 % at the instants):
