@@ -1,11 +1,9 @@
 using System.Collections.Immutable;
-using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using CompAssist.Core.Discrete;
 using CompAssist.Core.Model;
 using CompAssist.Core.Reporting;
-using CompAssist.Core.Workflow;
 
 namespace CompAssist.Core.Export;
 
