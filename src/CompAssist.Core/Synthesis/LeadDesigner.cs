@@ -28,7 +28,15 @@ public static class LeadDesigner
 
     /// <summary>Designs a lead for the loop at the target.</summary>
     /// <exception cref="ArgumentException">Options are inconsistent with the strategy (misuse, not user input).</exception>
-    public static Outcome<Design> Design(Loop loop, TargetPole target, LeadOptions options)
+    public static Outcome<Design> Design(Loop loop, TargetPole target, LeadOptions options) => Design(loop, target, options, null);
+
+    /// <summary>
+    /// Designs a lead for the loop at the target that also makes up the angle of <paramref name="alongside"/> (a
+    /// lag in cascade, unit gain) there: the lead's stages add the deficiency of G·H·alongside, and the gain is
+    /// solved with it, so the compensator lead·alongside places the target exactly. The placement still sees only
+    /// the plant's poles (a lag's pole is never "cancelled").
+    /// </summary>
+    public static Outcome<Design> Design(Loop loop, TargetPole target, LeadOptions options, TransferFunction? alongside)
     {
         ArgumentNullException.ThrowIfNull(loop);
         ArgumentNullException.ThrowIfNull(target);
@@ -48,7 +56,7 @@ public static class LeadDesigner
         }
 
         var uncompensated = PointAnalysis.At(loop, s);
-        var deficiency = uncompensated.AngleDeficiencyDegrees;
+        var deficiency = alongside is null ? uncompensated.AngleDeficiencyDegrees : PointAnalysis.At(loop, s, alongside).AngleDeficiencyDegrees;
         if (Math.Abs(deficiency) < OnLocusDegrees)
         {
             return Outcome<Design>.Refused(
@@ -83,7 +91,9 @@ public static class LeadDesigner
         var condition = loop.Sign == FeedbackSign.Negative
             ? "the 180° condition needs an odd multiple of 180°"
             : "the 0° condition needs a multiple of 360°";
-        notes.Add($"Angle of G·H at the target: {F(uncompensated.AngleSumDegrees)}° (zero angles minus pole angles); {condition}, so the lead must add {F(deficiency)}°.");
+        notes.Add(alongside is null
+            ? $"Angle of G·H at the target: {F(uncompensated.AngleSumDegrees)}° (zero angles minus pole angles); {condition}, so the lead must add {F(deficiency)}°."
+            : $"Angle of G·H at the target: {F(uncompensated.AngleSumDegrees)}° (zero angles minus pole angles); {condition}; with the lag's own angle there, the lead must add {F(deficiency)}°.");
         if (stages > 1)
         {
             notes.Add($"{F(deficiency)}° exceeds {F(options.MaxStageAngleDegrees)}° per stage: split into {stages} identical stages of {F(perStage)}° each.");
@@ -105,7 +115,7 @@ public static class LeadDesigner
             .Select(_ => new CompensatorStage(CompensatorKind.Lead, zero, pole, Angles.ToDegrees(AngleSeen(s, zero) - AngleSeen(s, pole))))
             .ToImmutableArray();
         var unitGain = Compensator.FromStages(CompensatorKind.Lead, 1.0, stageList);
-        var withUnit = PointAnalysis.At(loop, s, unitGain.TransferFunction);
+        var withUnit = PointAnalysis.At(loop, s, alongside is null ? unitGain.TransferFunction : unitGain.TransferFunction * alongside);
         var gain = withUnit.Gain;
         var compensator = Compensator.FromStages(CompensatorKind.Lead, gain, stageList);
         return Outcome<Design>.Success(new Design(loop, target, compensator, options.Placement, uncompensated, deficiency, notes.ToImmutable()));

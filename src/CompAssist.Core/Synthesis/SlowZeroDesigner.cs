@@ -20,26 +20,30 @@ public static class SlowZeroDesigner
     /// <summary>The result: the stages, the gain, the target where the gain was solved and what was done.</summary>
     public sealed record Result(ImmutableArray<CompensatorStage> Stages, double Gain, TargetPole Target, ImmutableArray<string> Notes, SteadyStateResult? SteadyState);
 
-    /// <summary>Adds a lag (<paramref name="integrator"/> false) or a PI zero and integrator (true) to <paramref name="baseStages"/>.</summary>
-    public static Outcome<Result> Add(Loop loop, ImmutableArray<CompensatorStage> baseStages, TargetPole target, ErrorRequirement? requirement, SlowPoleOptions options, bool integrator)
+    /// <summary>
+    /// Where the slow zero goes and the lag's first ratio: the checks a lag or PI must pass, the ratio β from the
+    /// requirement and the error constant before it (with the margin), and the zero at the fraction of σ, moved
+    /// nearer the origin when its angle at the target would exceed the budget.
+    /// </summary>
+    /// <param name="Zero">The slow zero.</param>
+    /// <param name="Fraction">The zero as a fraction of the target's real part.</param>
+    /// <param name="Beta">The lag's zero/pole ratio (∞ for a PI).</param>
+    /// <param name="Before">The error constant with the base stages alone (NaN without a requirement).</param>
+    /// <param name="Notes">What was done.</param>
+    public sealed record Plan(double Zero, double Fraction, double Beta, double Before, ImmutableArray<string> Notes);
+
+    /// <summary>The checks and the starting zero and ratio of a lag (<paramref name="integrator"/> false) or a PI on <paramref name="baseShape"/>.</summary>
+    public static Outcome<Plan> Prepare(Loop loop, TransferFunction baseShape, TargetPole target, ErrorRequirement? requirement, SlowPoleOptions options, bool integrator)
     {
         ArgumentNullException.ThrowIfNull(loop);
+        ArgumentNullException.ThrowIfNull(baseShape);
         ArgumentNullException.ThrowIfNull(target);
         ArgumentNullException.ThrowIfNull(options);
-        var what = integrator ? "PI" : "lag";
-        if (!(options.ZeroFraction > 0) || options.ZeroFraction >= 1)
+        if (OptionsProblem(options, integrator) is { } problem)
         {
-            return Outcome<Result>.Refused(
-                $"A {what} zero at {F(options.ZeroFraction)} of the target's real part would sit {(options.ZeroFraction >= 1 ? "at or right of the target" : "nowhere useful")}",
-                "Give a zero fraction between 0 and 1 (about 0.1 is usual).");
+            return Outcome<Plan>.Refused(problem);
         }
 
-        if (!(options.AngleBudgetDegrees > 0 && options.AngleBudgetDegrees < 30))
-        {
-            return Outcome<Result>.Refused($"An angle budget of {F(options.AngleBudgetDegrees)}° is out of range", "Give a few degrees (default 5°).");
-        }
-
-        var baseShape = Shape(baseStages);
         var s = target.Point;
         var sigma = target.Sigma;
         var baseGain = PointAnalysis.At(loop, s, baseShape).Gain;
@@ -54,24 +58,24 @@ public static class SlowZeroDesigner
         {
             if (requirement is null)
             {
-                return Outcome<Result>.Refused("A lag needs a steady-state requirement to size it", "Give a steady-state requirement: an error constant Kp, Kv or Ka, or a steady-state error.", Setting.SteadyState);
+                return Outcome<Plan>.Refused("A lag needs a steady-state requirement to size it", "Give a steady-state requirement: an error constant Kp, Kv or Ka, or a steady-state error.", Setting.SteadyState);
             }
 
             if (before == 0)
             {
-                return Outcome<Result>.Refused(
+                return Outcome<Plan>.Refused(
                     $"{requirement.Symbol} is 0 for this loop (type {ErrorConstants.Of(loop, baseShape).SystemType}); a lag scales an error constant but cannot raise the system type",
                     "Use a PI (or PID) to add an integrator.");
             }
 
             if (double.IsPositiveInfinity(before))
             {
-                return Outcome<Result>.Refused($"{requirement.Symbol} is already infinite for this loop", "No lag is needed for this requirement.");
+                return Outcome<Plan>.Refused($"{requirement.Symbol} is already infinite for this loop", "No lag is needed for this requirement.");
             }
 
             if (before >= requirement.Value)
             {
-                return Outcome<Result>.Refused(
+                return Outcome<Plan>.Refused(
                     $"{requirement.Symbol} is already {F(before)} ≥ {F(requirement.Value)} without a lag",
                     "No lag is needed: use the design without it.");
             }
@@ -80,14 +84,13 @@ public static class SlowZeroDesigner
         }
 
         var fraction = options.ZeroFraction;
-        double Cost(double f) => Angles.ToDegrees(LeadDesigner.AngleSeen(s, -f * sigma) - LeadDesigner.AngleSeen(s, integrator ? 0.0 : -f * sigma / beta));
-        if (Math.Abs(Cost(fraction)) > options.AngleBudgetDegrees)
+        if (Math.Abs(Cost(s, sigma, fraction, beta, integrator)) > options.AngleBudgetDegrees)
         {
             double lo = 0, hi = fraction;
             for (var i = 0; i < 100; i++)
             {
                 var mid = 0.5 * (lo + hi);
-                if (Math.Abs(Cost(mid)) > 0.9 * options.AngleBudgetDegrees)
+                if (Math.Abs(Cost(s, sigma, mid, beta, integrator)) > 0.9 * options.AngleBudgetDegrees)
                 {
                     hi = mid;
                 }
@@ -97,11 +100,32 @@ public static class SlowZeroDesigner
                 }
             }
 
-            notes.Add($"A zero at {F(fraction)}·σ would cost {F(Cost(fraction))}° at the target, beyond the {F(options.AngleBudgetDegrees)}° budget: moved to {F(lo)}·σ.");
+            notes.Add($"A zero at {F(fraction)}·σ would cost {F(Cost(s, sigma, fraction, beta, integrator))}° at the target, beyond the {F(options.AngleBudgetDegrees)}° budget: moved to {F(lo)}·σ.");
             fraction = lo;
         }
 
-        var zero = -fraction * sigma;
+        return Outcome<Plan>.Success(new Plan(-fraction * sigma, fraction, beta, before, notes.ToImmutable()));
+    }
+
+    /// <summary>Adds a lag (<paramref name="integrator"/> false) or a PI zero and integrator (true) to <paramref name="baseStages"/>.</summary>
+    public static Outcome<Result> Add(Loop loop, ImmutableArray<CompensatorStage> baseStages, TargetPole target, ErrorRequirement? requirement, SlowPoleOptions options, bool integrator)
+    {
+        ArgumentNullException.ThrowIfNull(loop);
+        ArgumentNullException.ThrowIfNull(target);
+        ArgumentNullException.ThrowIfNull(options);
+        var what = integrator ? "PI" : "lag";
+        var plan = Prepare(loop, Shape(baseStages), target, requirement, options, integrator);
+        if (!plan.IsSuccess)
+        {
+            return Outcome<Result>.Refused(plan.Problem);
+        }
+
+        var s = target.Point;
+        var sigma = target.Sigma;
+        var (zero, fraction, beta, before, planNotes) = plan.Value;
+        var notes = ImmutableArray.CreateBuilder<string>();
+        notes.AddRange(planNotes);
+        double Cost(double f) => SlowZeroDesigner.Cost(s, sigma, f, beta, integrator);
         for (var attempt = 0; ; attempt++)
         {
             var pole = integrator ? 0.0 : zero / beta;
@@ -143,6 +167,27 @@ public static class SlowZeroDesigner
             beta *= 1.02 * requirement.Value / after;
         }
     }
+
+    /// <summary>Why the zero fraction or the angle budget cannot be used for a lag or a PI; null when they can.</summary>
+    public static Problem? OptionsProblem(SlowPoleOptions options, bool integrator)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        var what = integrator ? "PI" : "lag";
+        if (!(options.ZeroFraction > 0) || options.ZeroFraction >= 1)
+        {
+            return new Problem(
+                $"A {what} zero at {F(options.ZeroFraction)} of the target's real part would sit {(options.ZeroFraction >= 1 ? "at or right of the target" : "nowhere useful")}",
+                "Give a zero fraction between 0 and 1 (about 0.1 is usual).");
+        }
+
+        return options.AngleBudgetDegrees is > 0 and < 30
+            ? null
+            : new Problem($"An angle budget of {F(options.AngleBudgetDegrees)}° is out of range", "Give a few degrees (default 5°).");
+    }
+
+    /// <summary>The angle (degrees) a slow zero at f·σ (and its pole at the zero over β, or the integrator) adds at s.</summary>
+    public static double Cost(Complex s, double sigma, double f, double beta, bool integrator) =>
+        Angles.ToDegrees(LeadDesigner.AngleSeen(s, -f * sigma) - LeadDesigner.AngleSeen(s, integrator ? 0.0 : -f * sigma / beta));
 
     /// <summary>The unit-gain transfer function of a list of stages.</summary>
     public static TransferFunction Shape(ImmutableArray<CompensatorStage> stages) =>

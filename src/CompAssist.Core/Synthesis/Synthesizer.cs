@@ -23,9 +23,9 @@ public static class Synthesizer
         {
             CompensatorKind.Lead => WithRequirementCheck(LeadDesigner.Design(loop, target, lead), loop, requirement),
             CompensatorKind.Lag => Lag(loop, target, slow, requirement),
-            CompensatorKind.LeadLag => slow.EqualFactor ? EqualFactorLeadLag(loop, target, slow, requirement) : LeadLag(loop, target, lead, slow, requirement),
+            CompensatorKind.LeadLag => slow.EqualFactor ? EqualFactorLeadLag(loop, target, slow, requirement) : LeadLagDesigner.Design(loop, target, lead, slow, requirement),
             CompensatorKind.PD => Pd(loop, target, slow, requirement),
-            CompensatorKind.PI => Pi(loop, target, slow, requirement),
+            CompensatorKind.PI => PiDesigner.Design(loop, target, lead.Placement == LeadPlacement.Cancel, slow, requirement),
             CompensatorKind.PID => Pid(loop, target, lead, slow, requirement),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown compensator kind."),
         });
@@ -59,24 +59,7 @@ public static class Synthesizer
             "a lag alone only fixes the steady state and must leave the transient (the locus) nearly unchanged",
             "Use lead-lag (lead for the transient, lag for the error), or move the target onto the uncompensated locus.");
 
-    private static Outcome<Design> LeadLag(Loop loop, TargetPole target, LeadOptions lead, SlowPoleOptions slow, ErrorRequirement? requirement)
-    {
-        var leadDesign = LeadDesigner.Design(loop, target, lead);
-        if (!leadDesign.IsSuccess)
-        {
-            return Outcome<Design>.Refused(leadDesign.Problem);
-        }
-
-        var result = SlowZeroDesigner.Add(loop, leadDesign.Value.Compensator.Stages, target, requirement, slow, integrator: false);
-        return Finish(loop, target, leadDesign.Value.Uncompensated, CompensatorKind.LeadLag, lead.Placement, result, leadDesign.Value.Notes);
-    }
-
-    private static Outcome<Design> Pi(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement) =>
-        SlowOnly(loop, target, slow, requirement, CompensatorKind.PI,
-            "a PI only adds an integrator and must leave the locus nearly unchanged near the target",
-            "Use a PID (its derivative zero supplies the angle), or move the target onto the uncompensated locus.");
-
-    /// <summary>A lag or a PI on its own: valid only where the target is (nearly) on the uncompensated locus.</summary>
+    /// <summary>A lag on its own: valid only where the target is (nearly) on the uncompensated locus.</summary>
     private static Outcome<Design> SlowOnly(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement, CompensatorKind kind, string why, string hint)
     {
         var check = TargetCheck.Refusal(loop, target.Point);
