@@ -97,9 +97,17 @@ internal static class DesignCommand
             lead = lead with { Placement = placement };
         }
 
+        var type = parse.GetValue(s.Type) ?? input.CompensatorType;
+        if (parse.GetValue(s.Kinds) is null && DesignWorkflow.KindOf(type) is { } kind && s.StrayFlags(parse, kind, lead.Placement) is { } stray)
+        {
+            stderr.WriteLine(stray);
+            code = CliApplication.InputError;
+            return null;
+        }
+
         return input with
         {
-            CompensatorType = parse.GetValue(s.Type) ?? input.CompensatorType,
+            CompensatorType = type,
             Slow = input.Slow with
             {
                 ZeroFraction = parse.GetValue(s.ZeroFraction) ?? input.Slow.ZeroFraction,

@@ -17,7 +17,7 @@ internal sealed class DesignSettings
 
     public RealOption FilterRatio { get; } = new("--filter-ratio") { Description = "PD/PID derivative filter pole at this multiple of the PD zero (default: ideal derivative)." };
 
-    public Option<string?> Placement { get; } = new("--placement") { Description = "Lead placement: beneath, bisector, cancel, fixed-zero, fixed-pole, ratio." };
+    public Option<string?> Placement { get; } = new("--placement") { Description = "Lead placement: beneath, bisector, cancel, fixed-zero, fixed-pole, ratio; a PI takes cancel (its zero on the slowest stable plant pole, or on --zero)." };
 
     public RealOption Zero { get; } = new("--zero") { Description = "Zero location for fixed-zero; the plant pole to cancel for cancel." };
 
@@ -71,6 +71,51 @@ internal sealed class DesignSettings
         return kinds.Count > 0 ? kinds : null;
     }
 
+    /// <summary>
+    /// The flags given that the one compensator kind asked for has no use for (a flag that applies to none of
+    /// the chosen kinds is refused, never silently ignored), with the reason; null when every flag applies.
+    /// </summary>
+    public string? StrayFlags(ParseResult parse, Core.Synthesis.CompensatorKind kind, Core.Synthesis.LeadPlacement placement)
+    {
+        var choices = Core.Search.SearchPinNames.ChoicesOf(kind);
+        var pi = kind == Core.Synthesis.CompensatorKind.PI;
+        var stray = new List<string>();
+        foreach (var (option, pin) in PinnedOptions())
+        {
+            var given = parse.GetResult(option) is { Implicit: false };
+            var applies = (pin & ~choices) == Core.Search.SearchPins.None
+                && !(pi && (option == Pole || option == Ratio || option == MaxStageAngle))
+                && !(pi && option == Placement && placement != Core.Synthesis.LeadPlacement.Cancel)
+                && !(pi && option == Zero && placement != Core.Synthesis.LeadPlacement.Cancel);
+            if (given && !applies)
+            {
+                stray.Add(option.Name);
+            }
+        }
+
+        var slowZero = kind is Core.Synthesis.CompensatorKind.Lag or Core.Synthesis.CompensatorKind.LeadLag or Core.Synthesis.CompensatorKind.PI or Core.Synthesis.CompensatorKind.PID;
+        if (parse.GetResult(AngleBudget) is { Implicit: false } && !slowZero)
+        {
+            stray.Add(AngleBudget.Name);
+        }
+
+        if (parse.GetValue(EqualFactor) && kind != Core.Synthesis.CompensatorKind.LeadLag)
+        {
+            stray.Add(EqualFactor.Name);
+        }
+
+        if (stray.Count == 0)
+        {
+            return null;
+        }
+
+        var name = Core.Synthesis.CompensatorKindNames.NameOf(kind);
+        var uses = pi
+            ? "the slow zero's fraction of σ, and the placement cancel: its zero on a stable plant pole, --zero to name it"
+            : Core.Search.SearchPinNames.Settings(choices);
+        return $"error: {string.Join(", ", stray)} {(stray.Count == 1 ? "does" : "do")} not apply to a {name} design (its choices: {(uses.Length == 0 ? "none" : uses)}).\nhint: remove {(stray.Count == 1 ? "it" : "them")}, or choose a --type that uses {(stray.Count == 1 ? "it" : "them")} (--kinds compares several types and reports what each leaves unused).";
+    }
+
     /// <summary>The free choices given on the command line: the search keeps them as given.</summary>
     private Core.Search.SearchPins Pinned(ParseResult parse)
     {
@@ -83,16 +128,25 @@ internal sealed class DesignSettings
             }
         }
 
-        Pin(Placement, Core.Search.SearchPins.Placement);
-        Pin(Zero, Core.Search.SearchPins.Placement);
-        Pin(Pole, Core.Search.SearchPins.Placement);
-        Pin(Ratio, Core.Search.SearchPins.Placement | Core.Search.SearchPins.Ratio);
-        Pin(MaxStageAngle, Core.Search.SearchPins.StageAngle);
-        Pin(ZeroFraction, Core.Search.SearchPins.ZeroFraction);
-        Pin(Margin, Core.Search.SearchPins.LagMargin);
-        Pin(FilterRatio, Core.Search.SearchPins.FilterRatio);
+        foreach (var (option, pin) in PinnedOptions())
+        {
+            Pin(option, pin);
+        }
+
         return pins;
     }
+
+    private IEnumerable<(Option Option, Core.Search.SearchPins Pin)> PinnedOptions() =>
+    [
+        (Placement, Core.Search.SearchPins.Placement),
+        (Zero, Core.Search.SearchPins.Placement),
+        (Pole, Core.Search.SearchPins.Placement),
+        (Ratio, Core.Search.SearchPins.Placement | Core.Search.SearchPins.Ratio),
+        (MaxStageAngle, Core.Search.SearchPins.StageAngle),
+        (ZeroFraction, Core.Search.SearchPins.ZeroFraction),
+        (Margin, Core.Search.SearchPins.LagMargin),
+        (FilterRatio, Core.Search.SearchPins.FilterRatio),
+    ];
 
     public void AddTo(Command command)
     {

@@ -158,7 +158,12 @@ public static class DesignSearch
     private static IEnumerable<SearchChoice> Variants(Loop loop, CompensatorKind kind, TargetPole target, LeadOptions lead, SlowPoleOptions slow, SearchPins pinned)
     {
         var free = SearchPinNames.ChoicesOf(kind) & ~pinned;
-        if (free.HasFlag(SearchPins.Placement))
+        if (kind == CompensatorKind.PI && free.HasFlag(SearchPins.Placement) && loop.Plant.Poles.Any(p => p.Imaginary == 0 && p.Real < 0))
+        {
+            // A PI's one placement beside its zero fraction: the pole-cancelling PI.
+            yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Cancel, Zero = null }, slow);
+        }
+        else if (free.HasFlag(SearchPins.Placement))
         {
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Bisector }, slow);
             yield return new SearchChoice(target, lead with { Placement = LeadPlacement.Beneath }, slow);

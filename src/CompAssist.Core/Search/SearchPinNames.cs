@@ -25,7 +25,7 @@ public static class SearchPinNames
         CompensatorKind.Lead => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle,
         CompensatorKind.LeadLag => SearchPins.Placement | SearchPins.Ratio | SearchPins.StageAngle | SearchPins.ZeroFraction | SearchPins.LagMargin,
         CompensatorKind.Lag => SearchPins.ZeroFraction | SearchPins.LagMargin,
-        CompensatorKind.PI => SearchPins.ZeroFraction,
+        CompensatorKind.PI => SearchPins.ZeroFraction | SearchPins.Placement,
         CompensatorKind.PD => SearchPins.FilterRatio,
         CompensatorKind.PID => SearchPins.ZeroFraction | SearchPins.FilterRatio,
         _ => SearchPins.None,

@@ -111,9 +111,21 @@ public static class LeadDesigner
             notes.Add(placementNote);
         }
 
-        var stageList = Enumerable.Range(0, stages)
-            .Select(_ => new CompensatorStage(CompensatorKind.Lead, zero, pole, Angles.ToDegrees(AngleSeen(s, zero) - AngleSeen(s, pole))))
-            .ToImmutableArray();
+        var first = new CompensatorStage(CompensatorKind.Lead, zero, pole, Angles.ToDegrees(AngleSeen(s, zero) - AngleSeen(s, pole)));
+        var stageList = Enumerable.Repeat(first, stages).ToImmutableArray();
+        if (options.Placement == LeadPlacement.Cancel && stages > 1)
+        {
+            // One zero cancels the pole; stacking the others on it would only make a multiple zero there. The
+            // other stages take the bisector rule for their equal share of the angle.
+            var other = BisectorStage(s, perStage);
+            if (!other.IsSuccess)
+            {
+                return Outcome<Design>.Refused(other.Problem);
+            }
+
+            stageList = [first, .. Enumerable.Repeat(other.Value, stages - 1)];
+            notes.Add($"The other {stages - 1} stage(s) use the bisector rule (zero {F(other.Value.Zero!.Value)}, pole {F(other.Value.Pole!.Value)}), so only one zero sits on the cancelled pole.");
+        }
         var unitGain = Compensator.FromStages(CompensatorKind.Lead, 1.0, stageList);
         var withUnit = PointAnalysis.At(loop, s, alongside is null ? unitGain.TransferFunction : unitGain.TransferFunction * alongside);
         var gain = withUnit.Gain;
@@ -380,7 +392,7 @@ public static class LeadDesigner
                 "Never cancel an unstable or marginal pole: choose another placement and let feedback move it.");
         }
 
-        var note = $"Zero cancels the plant pole at {F(candidate.Real)}" + (stages > 1 ? $"; the other {stages - 1} stage zero(s) sit there too (only one pole is cancelled)." : ".");
+        var note = $"Zero cancels the plant pole at {F(candidate.Real)}.";
         return FixedZero(s, candidate.Real, phi, perStageDegrees, note);
     }
 

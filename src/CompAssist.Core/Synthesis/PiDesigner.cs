@@ -18,8 +18,11 @@ namespace CompAssist.Core.Synthesis;
 /// </summary>
 public static class PiDesigner
 {
-    /// <summary>Designs the PI; <paramref name="cancel"/> asks for the pole-cancelling placement.</summary>
-    public static Outcome<Design> Design(Loop loop, TargetPole target, bool cancel, SlowPoleOptions slow, ErrorRequirement? requirement)
+    /// <summary>
+    /// Designs the PI; <paramref name="cancel"/> asks for the pole-cancelling placement, on
+    /// <paramref name="cancelled"/> when given (a stable real plant pole), else on the slowest one.
+    /// </summary>
+    public static Outcome<Design> Design(Loop loop, TargetPole target, bool cancel, SlowPoleOptions slow, ErrorRequirement? requirement, double? cancelled = null)
     {
         ArgumentNullException.ThrowIfNull(loop);
         ArgumentNullException.ThrowIfNull(target);
@@ -34,7 +37,7 @@ public static class PiDesigner
         var uncompensated = PointAnalysis.At(loop, s);
         if (cancel)
         {
-            return Cancelling(loop, target, uncompensated, requirement);
+            return Cancelling(loop, target, uncompensated, requirement, cancelled);
         }
 
         var deficiency = uncompensated.AngleDeficiencyDegrees;
@@ -83,9 +86,21 @@ public static class PiDesigner
         return Finish(loop, target, uncompensated, stage, gain, notes, requirement);
     }
 
-    private static Outcome<Design> Cancelling(Loop loop, TargetPole target, PointAnalysis uncompensated, ErrorRequirement? requirement)
+    private static Outcome<Design> Cancelling(Loop loop, TargetPole target, PointAnalysis uncompensated, ErrorRequirement? requirement, double? cancelled)
     {
         var stable = loop.Plant.Poles.Where(p => p.Imaginary == 0 && p.Real < 0).OrderByDescending(p => p.Real).ToList();
+        if (cancelled is { } chosen)
+        {
+            stable = [.. stable.Where(p => Math.Abs(p.Real - chosen) <= 1e-6 * Math.Max(1.0, Math.Abs(chosen)))];
+            if (stable.Count == 0)
+            {
+                return Outcome<Design>.Refused(
+                    $"The plant has no stable real pole at {F(chosen)} for the PI zero to cancel",
+                    $"Plant poles: {string.Join(", ", loop.Plant.Poles.Select(p => TransferFunctionFormatter.Complex(p, 4)))}; a PI cancels only a stable real one.",
+                    Setting.LeadZero);
+            }
+        }
+
         if (stable.Count == 0)
         {
             return Outcome<Design>.Refused(

@@ -25,7 +25,7 @@ public static class Synthesizer
             CompensatorKind.Lag => Lag(loop, target, slow, requirement),
             CompensatorKind.LeadLag => slow.EqualFactor ? EqualFactorLeadLag(loop, target, slow, requirement) : LeadLagDesigner.Design(loop, target, lead, slow, requirement),
             CompensatorKind.PD => Pd(loop, target, slow, requirement),
-            CompensatorKind.PI => PiDesigner.Design(loop, target, lead.Placement == LeadPlacement.Cancel, slow, requirement),
+            CompensatorKind.PI => PiDesigner.Design(loop, target, lead.Placement == LeadPlacement.Cancel, slow, requirement, lead.Placement == LeadPlacement.Cancel ? lead.Zero : null),
             CompensatorKind.PID => Pid(loop, target, lead, slow, requirement),
             _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Unknown compensator kind."),
         });
@@ -236,10 +236,20 @@ public static class Synthesizer
         var piAngle = Angles.ToDegrees(LeadDesigner.AngleSeen(s, piZero) - LeadDesigner.AngleSeen(s, 0.0));
         var pi = new CompensatorStage(CompensatorKind.PI, piZero, 0.0, piAngle);
         var needed = uncompensated.AngleDeficiencyDegrees - piAngle;
-        if (needed < 0 && needed + 360 <= lead.MaxStageAngleDegrees * (LeadOptions.MaxStages + 1))
+        var piCanGive = uncompensated.AngleDeficiencyDegrees < 0 && -uncompensated.AngleDeficiencyDegrees < Angles.ToDegrees(LeadDesigner.AngleSeen(s, 0.0));
+        if (needed < 0 && !piCanGive && needed + 360 <= lead.MaxStageAngleDegrees * (LeadOptions.MaxStages + 1))
         {
-            // The angle condition holds modulo 360°: a lag of x° is also 360° − x° of lead.
+            // The angle condition holds modulo 360°: a lag of x° that no PI can give is also 360° − x° of lead.
             needed += 360;
+        }
+
+        if (needed <= 0.05)
+        {
+            // The lag a PI gives exactly by its zero (360° less it as lead would need a derivative zero and up to
+            // four lead stages: not a PID anyone ships).
+            return Outcome<Design>.Refused(
+                $"The target needs {F(-needed)}° of lag beyond the integral zero's; a PID's derivative zero only adds lead",
+                "Use a PI: its zero from the angle condition places a target that needs lag exactly (or move the target left or up, where a derivative zero helps).");
         }
 
         var withPi = loop.WithPlant(loop.Plant * SlowZeroDesigner.Shape([pi]));

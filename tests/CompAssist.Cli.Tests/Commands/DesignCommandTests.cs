@@ -306,6 +306,32 @@ public class DesignCommandTests
         Assert.Contains(reason, error, StringComparison.Ordinal);
     }
 
+    [Theory]
+    [InlineData("lead", "--zero-fraction 0.2", "--zero-fraction does not apply to a lead design")]
+    [InlineData("lead", "--equal-factor", "--equal-factor does not apply to a lead design")]
+    [InlineData("pd", "--angle-budget 3", "--angle-budget does not apply to a pd design")]
+    [InlineData("pi", "--placement bisector", "--placement does not apply to a pi design")]
+    [InlineData("pi", "--ratio 5", "--ratio does not apply to a pi design")]
+    [InlineData("lag", "--filter-ratio 10", "--filter-ratio does not apply to a lag design")]
+    public void Design_FlagForNoneOfTheKinds_ExitTwoWithTheReason(string type, string flags, string reason)
+    {
+        string[] args = ["design", "--plant", "5/(s(s+1)(s+5))", "--type", type, "--overshoot", "20", "--kv", "2", .. flags.Split(' ')];
+        var (code, output, error) = CliRunner.Run(args);
+        Assert.Equal(2, code);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains(reason, error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Design_PiWithPlacementCancel_ZeroOnTheNamedPlantPole()
+    {
+        var (code, output, error) = CliRunner.Run("design", "--plant", "0.5/((s+0.1)(s+1))", "--type", "pi", "--placement", "cancel", "--zero", "-1", "--zeta", "0.7", "--wn", "0.07", "--json");
+        Assert.True(code is 0 or 4, error);
+        using var json = System.Text.Json.JsonDocument.Parse(output);
+        var zeros = json.RootElement.GetProperty("compensator").GetProperty("zeros");
+        Assert.Equal(-1.0, zeros[0].GetProperty("re").GetDouble(), 12);
+    }
+
     [Fact]
     public void Design_TwoSteadyStateRequirements_Refused()
     {

@@ -188,4 +188,26 @@ public class LeadDesignerTests
         Tolerance.Close(b.Compensator.Stages[0].Zero, a.Compensator.Stages[0].Zero, 1e-12);
         Tolerance.Close(b.Compensator.Gain, a.Compensator.Gain, 1e-12);
     }
+
+    [Fact]
+    public void Design_CancelWithTwoStages_OneZeroOnThePoleTheOtherByTheBisector()
+    {
+        // 10/(s(s+1)(s+5)) at −3 + 4j needs 126.87° (180° − 53.13°, by hand): three stages of 42.29°. One zero
+        // cancels −1, the other stages are placed by the bisector rule, not stacked on −1 (a multiple zero there
+        // would cancel nothing more).
+        var loop = LoopOf("10/(s(s+1)(s+5))");
+        var target = new Complex(-3, 4);
+        var d = Designed(loop, target, new LeadOptions { Placement = LeadPlacement.Cancel, Zero = -1 });
+        Tolerance.Close(126.87, d.AngleDeficiencyDegrees, 0, 0.01, "deficiency by hand");
+        Assert.Equal(3, d.Compensator.Stages.Length);
+        Assert.Equal(-1.0, d.Compensator.Stages[0].Zero);
+        var bisector = LeadDesigner.Design(loop, TargetPole.At(target), new LeadOptions { Placement = LeadPlacement.Bisector }).Value!;
+        foreach (var stage in d.Compensator.Stages.Skip(1))
+        {
+            Assert.NotEqual(-1.0, stage.Zero!.Value, 6);
+            Tolerance.Close(bisector.Compensator.Stages[0].Zero, stage.Zero, 1e-9, what: "the other stages are the bisector's stage");
+        }
+        Tolerance.Close(d.AngleDeficiencyDegrees, d.Compensator.Stages.Sum(st => st.AngleAtTargetDegrees), 1e-9, what: "the stages together add the deficiency");
+        Assert.True(LoopProver.Prove(loop, d.Compensator.TransferFunction, d.Target).TargetResidual <= 1e-9);
+    }
 }

@@ -222,4 +222,17 @@ public class SynthesizerTests
         Assert.NotNull(d.Compensator.Pid);
         Tolerance.Close(d.AngleDeficiencyDegrees + 360, d.Compensator.Stages.Sum(st => st.AngleAtTargetDegrees), 1e-6, what: "all angles counted");
     }
+
+    [Fact]
+    public void Pid_TargetNeedingLagAPiGives_RefusedPointingToThePi()
+    {
+        // e^(−0.1s)/(s − 1) at −2 + 2j needs 22.2° of lag (computed in PiDesignerTests): a PI places it exactly;
+        // 360° − 22° of lead from a derivative zero and lead stages is no PID to ship, so the PID says so.
+        var loop = Loop.Create(ExpressionParser.Parse("exp(-0.1s)/(s-1)", requireProper: true).Value!);
+        var outcome = Synthesizer.Design(loop, TargetPole.At(new Complex(-2, 2)), CompensatorKind.PID, new LeadOptions(), new SlowPoleOptions { FilterRatio = 10 }, null);
+        Assert.False(outcome.IsSuccess);
+        Assert.Contains("derivative zero only adds lead", outcome.Problem!.Message, StringComparison.Ordinal);
+        Assert.Contains("Use a PI", outcome.Problem.Hint, StringComparison.Ordinal);
+        Assert.True(Synthesizer.Design(loop, TargetPole.At(new Complex(-2, 2)), CompensatorKind.PI, new LeadOptions(), new SlowPoleOptions(), null).IsSuccess);
+    }
 }
