@@ -21,7 +21,7 @@ public static class Synthesizer
         ArgumentNullException.ThrowIfNull(slow);
         return WithinRange(kind switch
         {
-            CompensatorKind.Lead => WithRequirementCheck(LeadDesigner.Design(loop, target, lead), loop, requirement),
+            CompensatorKind.Lead => WithRequirementCheck(WithAlternative(LeadDesigner.Design(loop, target, lead), loop, target, lead), loop, requirement),
             CompensatorKind.Lag => Lag(loop, target, slow, requirement),
             CompensatorKind.LeadLag => slow.EqualFactor ? EqualFactorLeadLag(loop, target, slow, requirement) : LeadLagDesigner.Design(loop, target, lead, slow, requirement),
             CompensatorKind.PD => Pd(loop, target, slow, requirement),
@@ -52,6 +52,40 @@ public static class Synthesizer
                 $"The compensator would need a coefficient of {F(worst)}, outside the range this tool accepts (1e-12 … 1e12 in magnitude)",
                 "Choose a slower target (a longer settling time or peak time), or rescale the time unit so the loop's numbers stay in range.",
                 Setting.Target);
+    }
+
+    /// <summary>
+    /// When the chosen lead placement is refused, the hint names the placements that do design at this target
+    /// (bisector, beneath, cancel, ratio 10, in that order) with their zero and pole, so the user is not left
+    /// with the refusal alone.
+    /// </summary>
+    private static Outcome<Design> WithAlternative(Outcome<Design> outcome, Loop loop, TargetPole target, LeadOptions lead)
+    {
+        if (outcome.IsSuccess || TargetCheck.Refusal(loop, target.Point) is not null)
+        {
+            return outcome;
+        }
+
+        LeadOptions[] others =
+        [
+            lead with { Placement = LeadPlacement.Bisector, Zero = null, Pole = null, Ratio = null },
+            lead with { Placement = LeadPlacement.Beneath, Zero = null, Pole = null, Ratio = null },
+            lead with { Placement = LeadPlacement.Cancel, Zero = null, Pole = null, Ratio = null },
+            lead with { Placement = LeadPlacement.Ratio, Zero = null, Pole = null, Ratio = 10 },
+        ];
+        var working = others
+            .Where(o => o.Placement != lead.Placement)
+            .Select(o => (Options: o, Design: LeadDesigner.Design(loop, target, o)))
+            .Where(x => x.Design.IsSuccess)
+            .Select(x => $"{PlacementNames.NameOf(x.Options.Placement)} placement{(x.Options.Ratio is { } r ? $" (ratio {F(r)})" : string.Empty)} works here (first stage zero {F(x.Design.Value!.Compensator.Stages[0].Zero!.Value)}, pole {F(x.Design.Value.Compensator.Stages[0].Pole!.Value)})")
+            .ToList();
+        if (working.Count == 0)
+        {
+            return outcome;
+        }
+
+        var problem = outcome.Problem;
+        return Outcome<Design>.Refused(problem with { Hint = $"{problem.Hint} The {string.Join("; the ", working)}." });
     }
 
     private static Outcome<Design> Lag(Loop loop, TargetPole target, SlowPoleOptions slow, ErrorRequirement? requirement) =>

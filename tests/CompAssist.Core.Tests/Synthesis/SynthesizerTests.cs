@@ -235,4 +235,15 @@ public class SynthesizerTests
         Assert.Contains("Use a PI", outcome.Problem.Hint, StringComparison.Ordinal);
         Assert.True(Synthesizer.Design(loop, TargetPole.At(new Complex(-2, 2)), CompensatorKind.PI, new LeadOptions(), new SlowPoleOptions(), null).IsSuccess);
     }
+
+    [Fact]
+    public void Lead_ChosenPlacementRefused_HintNamesThePlacementsThatWork()
+    {
+        // A double integrator has no stable real pole to cancel. At −1 + j it needs 90° (−2·135° + 90° = −180°, by
+        // hand): two stages of 45°; zero −1 sees the target under 90°, pole −2 under 45°, so each adds 45°.
+        var outcome = Synthesizer.Design(LoopOf("1/s^2"), TargetPole.At(new Complex(-1, 1)), CompensatorKind.Lead, new LeadOptions { Placement = LeadPlacement.Cancel }, new SlowPoleOptions(), null);
+        Assert.False(outcome.IsSuccess);
+        Assert.Contains("no stable real pole", outcome.Problem!.Message, StringComparison.Ordinal);
+        Assert.Contains("The bisector placement works here (first stage zero -1, pole -2)", outcome.Problem.Hint, StringComparison.Ordinal);
+    }
 }
