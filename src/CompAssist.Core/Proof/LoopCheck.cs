@@ -18,6 +18,9 @@ public static class LoopCheck
     // Relative size below which a difference of nearly equal terms (1 − T(0), the terms of T′(0)) is rounding.
     private const double RoundingLevel = 1e-10;
 
+    /// <summary>How the warning of a loop that settles away from the reference begins (no steady-state requirement stated).</summary>
+    public const string OffsetWarningStart = "The loop settles at ";
+
     /// <summary>Checks the loop, finding its closed-loop poles by root finding.</summary>
     /// <exception cref="RootFindingException">The closed-loop poles cannot be verified.</exception>
     public static LoopCheckReport Run(Loop loop, TransferFunction compensator, CheckOptions options, Requirements? requirements = null, TargetPole? target = null)
@@ -86,6 +89,11 @@ public static class LoopCheck
         {
             var slowest = closedLoopPoles.Where(p => p.Imaginary > 0 && p.Real < 0).Select(p => -p.Real).DefaultIfEmpty(double.NaN).Min();
             warnings.Add($"The loop is so lightly damped that the simulation stops at {F(horizon)} s ({StepTrajectory.MaxOscillationSamples / 2:F0} radians of its oscillation, about {StepTrajectory.MaxOscillationSamples / 4 / Math.PI:F0} periods) instead of running until it settles: its envelope needs about 4/σ = {F(4 / slowest)} s to enter the ±2 % band. Overshoot, peak and rise are measured (over so many periods rounding can grow the oscillation by about 0.2 %, which then exceeds its true decay for ζ below about 1e-7); the settling time is beyond the simulated span.");
+        }
+
+        if (stable && requirements?.Constant is null && Math.Abs(1.0 - final) > 0.02)
+        {
+            warnings.Add($"{OffsetWarningStart}{F(final)} for a unit reference (steady-state error {F(100 * stepError)} %): overshoot and settling are measured about that final value, not about the reference. Remedies: integral action (a PI or PID makes the loop type 1 and the step error 0), or a reference prefilter gain of {F(1 / final)} (exact on the nominal plant only; an offset from a load disturbance remains).");
         }
 
         if (stable && double.IsPositiveInfinity(metrics.SettlingTime2Percent))

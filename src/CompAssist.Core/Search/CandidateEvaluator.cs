@@ -84,7 +84,9 @@ internal sealed class CandidateEvaluator(Loop loop, Requirements requirements, C
             SearchObjective.SettlingTime => requirements.Band == SettlingBand.FivePercent ? metrics.SettlingTime5Percent : metrics.SettlingTime2Percent,
             _ => HighFrequencyGain(c),
         };
-        return new SearchCandidate(choice, design, true, violation == 0, violation, objective, checks, order);
+        var band = requirements.Band == SettlingBand.FivePercent ? 0.05 : 0.02;
+        var tracks = requirements.Constant is not null || Math.Abs(1 - metrics.FinalValue) <= band;
+        return new SearchCandidate(choice, design, true, violation == 0, violation, objective, checks, order) { Tracks = tracks };
     }
 
     /// <summary>|C(∞)|: the gain of a biproper compensator at high frequency; 0 when strictly proper, +∞ when improper.</summary>

@@ -261,6 +261,12 @@ public static class DesignSearch
             return a.Meets;
         }
 
+        if (a.Meets && a.Tracks != b.Tracks)
+        {
+            gain = 1;
+            return a.Tracks;
+        }
+
         var (x, y) = a.Meets ? (a.Objective, b.Objective) : (a.Violation, b.Violation);
         if (!(x < y))
         {

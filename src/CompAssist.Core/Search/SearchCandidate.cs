@@ -15,6 +15,16 @@ namespace CompAssist.Core.Search;
 /// <param name="Order">The order of evaluation: the fixed tie-break key.</param>
 public sealed record SearchCandidate(SearchChoice Choice, Design Design, bool Stable, bool Meets, double Violation, double Objective, ImmutableArray<RequirementCheck> Checks, int Order)
 {
-    /// <summary>The ranking key: meeting candidates first by objective, the others by violation, then by order.</summary>
-    public (int Group, double Value, int Order) Rank => (Meets ? 0 : 1, Meets ? Objective : Violation, Order);
+    /// <summary>
+    /// False when no steady-state requirement is stated and the unit step does not settle within the settling
+    /// band of the reference (a type-0 or unstable plant under a lead settles at 0.03 or 2.3): such a loop can meet
+    /// overshoot and settling, both measured about its own final value, while not following the reference.
+    /// </summary>
+    public bool Tracks { get; init; } = true;
+
+    /// <summary>
+    /// The ranking key: meeting candidates that track first, then meeting ones that do not (both by objective),
+    /// the others by violation; then by order.
+    /// </summary>
+    public (int Group, double Value, int Order) Rank => (Meets ? (Tracks ? 0 : 1) : 2, Meets ? Objective : Violation, Order);
 }

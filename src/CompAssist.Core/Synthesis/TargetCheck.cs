@@ -44,6 +44,35 @@ internal static class TargetCheck
                 "Scale the plant (its gain or time units) or move the target.");
         }
 
-        return null;
+        return DelayModelRefusal(loop, s);
+    }
+
+    /// <summary>Largest relative gap between e^(−sτ) and its Padé approximant at the target for which both agree.</summary>
+    public const double DelayModelTolerance = 0.01;
+
+    /// <summary>
+    /// The conditions are met with the exact delay, the closed-loop roots are found on its Padé approximant: far
+    /// from the origin (|s|·τ beyond about the order) the two differ, a target met on e^(−sτ) (whose magnitude
+    /// grows without bound to the left) is no root of the proved loop, and a gain of 1e-12 can "place" it. Refused
+    /// when the approximant differs from e^(−sτ) at s by more than 1 % (common practice: the Padé approximant of
+    /// order n is accurate for |s·τ| well below n).
+    /// </summary>
+    private static Problem? DelayModelRefusal(Loop loop, Complex s)
+    {
+        var tau = loop.PlantTimesFeedback.Delay;
+        if (tau == 0.0)
+        {
+            return null;
+        }
+
+        var exact = Complex.Exp(-s * tau);
+        var approximant = PadeApproximation.Of(tau, loop.PadeOrder).Evaluate(s);
+        var gap = Complex.Abs((approximant / exact) - Complex.One);
+        return gap <= DelayModelTolerance
+            ? null
+            : new Problem(
+                $"At the target the delay's order-{loop.PadeOrder} Padé approximant differs from e^(−s·{TransferFunctionFormatter.Number(tau, 4)}) by {TransferFunctionFormatter.Number(100 * gap, 3)} % (|s*|·τ = {TransferFunctionFormatter.Number(s.Magnitude * tau, 3)}): the closed loop, proved on the approximant, would not have this target as a root",
+                $"Choose a target nearer the origin (|s*|·τ below about {Math.Max(1, loop.PadeOrder / 2)}) or raise the Padé order (up to {PadeApproximation.MaxOrder}).",
+                Setting.Target);
     }
 }

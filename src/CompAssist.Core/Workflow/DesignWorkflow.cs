@@ -177,10 +177,11 @@ public static class DesignWorkflow
         return DesignRun.Success(best.Report! with { KindsCompared = rows });
     }
 
+    // Meeting and following the reference first, meeting about an offset final value next (see SearchCandidate.Tracks).
     private static (int Group, double Value) Score(DesignReport report) =>
         report.Search is { } s
-            ? (s.Meets ? 0 : 1, s.Meets ? s.Winner.Objective : s.Winner.Violation)
-            : (report.Verdict.Meets ? 0 : 1, 0.0);
+            ? (s.Meets ? (s.Winner.Tracks ? 0 : 1) : 2, s.Meets ? s.Winner.Objective : s.Winner.Violation)
+            : (report.Verdict.Meets ? (report.Check.Warnings.Any(w => w.StartsWith(Proof.LoopCheck.OffsetWarningStart, StringComparison.Ordinal)) ? 1 : 0) : 2, 0.0);
 
     private static KindResult Row(CompensatorKind kind, DesignRun run, SearchPins unused)
     {
