@@ -118,47 +118,9 @@ public sealed record SampleTimeLadder(double Bandwidth, double Start, ImmutableA
         return Tidy(mantissa switch { 1 => 2 * decade, 2 => 5 * decade, _ => 10 * decade });
     }
 
-    /// <summary>−3 dB bandwidth of T = C·G/(1 ± C·G·H) with delays exact: the first ω where |T(jω)| = |T(0)|/√2.</summary>
-    public static double ClosedLoopBandwidth(Loop loop, TransferFunction compensator, double scale)
-    {
-        ArgumentNullException.ThrowIfNull(loop);
-        ArgumentNullException.ThrowIfNull(compensator);
-        var forward = compensator * loop.Plant;
-        var open = loop.OpenLoop(compensator);
-        double Magnitude(double w)
-        {
-            var s = new Complex(0, w);
-            return Complex.Abs(forward.Evaluate(s) / (1.0 + (loop.SignFactor * open.Evaluate(s))));
-        }
-
-        var reference = Magnitude(1e-6 * scale);
-        if (!(reference > 0) || !double.IsFinite(reference))
-        {
-            return double.NaN;
-        }
-
-        var level = reference / Math.Sqrt(2);
-        var previous = 1e-6 * scale;
-        for (var i = 1; i <= 1200; i++)
-        {
-            var w = 1e-6 * scale * Math.Pow(10, i / 100.0);
-            if (Magnitude(w) < level)
-            {
-                double lo = previous, hi = w;
-                for (var k = 0; k < 60; k++)
-                {
-                    var mid = Math.Sqrt(lo * hi);
-                    (lo, hi) = Magnitude(mid) < level ? (lo, mid) : (mid, hi);
-                }
-
-                return Math.Sqrt(lo * hi);
-            }
-
-            previous = w;
-        }
-
-        return double.NaN;
-    }
+    /// <summary>−3 dB bandwidth of T = C·G/(1 ± C·G·H) with delays exact (<see cref="FrequencyFigures"/>).</summary>
+    public static double ClosedLoopBandwidth(Loop loop, TransferFunction compensator, double scale) =>
+        FrequencyFigures.Of(loop, compensator, scale).Bandwidth;
 
     /// <summary>
     /// The phase margin of the sampled loop from its frequency response on the unit circle,

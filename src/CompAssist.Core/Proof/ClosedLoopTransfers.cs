@@ -11,7 +11,8 @@ namespace CompAssist.Core.Proof;
 /// </summary>
 /// <param name="Output">Reference to output y.</param>
 /// <param name="Effort">Reference to actuator command u; null when C is improper (u has an impulse).</param>
-public sealed record ClosedLoopTransfers(TransferFunction Output, TransferFunction? Effort)
+/// <param name="Load">A load at the plant input to the output: G/(1 ± C·G·H).</param>
+public sealed record ClosedLoopTransfers(TransferFunction Output, TransferFunction? Effort, TransferFunction Load)
 {
     /// <summary>Builds both from the loop, the compensator and the closed-loop poles.</summary>
     public static ClosedLoopTransfers Of(Loop loop, TransferFunction compensator, ImmutableArray<Complex> closedLoopPoles)
@@ -36,6 +37,10 @@ public sealed record ClosedLoopTransfers(TransferFunction Output, TransferFuncti
                 closedLoopPoles);
         }
 
-        return new ClosedLoopTransfers(output, effort);
+        var load = TransferFunction.FromFactors(
+            g.Gain / lead,
+            g.Zeros.AddRange(c.Poles).AddRange(h.Poles),
+            closedLoopPoles);
+        return new ClosedLoopTransfers(output, effort, load);
     }
 }

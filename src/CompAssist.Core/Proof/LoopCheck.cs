@@ -71,6 +71,17 @@ public static class LoopCheck
             ? SampledEffort(exactEffort, effortSystem.D, options, finalCommand)
             : Effort(effortSystem, closedLoopPoles, horizon, options, finalCommand);
 
+        var bandFraction = requirements?.Band == Targets.SettlingBand.FivePercent ? 0.05 : 0.02;
+        LoadDisturbanceFigures? load = null;
+        FrequencyFigures? frequency = null;
+        if (stable)
+        {
+            var loadResponse = StepSimulator.Step(CascadeRealization.Of(transfers.Load), horizon / options.Intervals, options.Intervals);
+            load = LoadDisturbanceFigures.Of(loadResponse, transfers.Load.DcGain, bandFraction);
+            var scale = margins is { } m && double.IsFinite(m.GainCrossover) && m.GainCrossover > 0 ? m.GainCrossover : Math.Max(closedLoopPoles.Select(p => p.Magnitude).DefaultIfEmpty(1.0).Min(), 1e-6);
+            frequency = FrequencyFigures.Of(loop, compensator, scale);
+        }
+
         var warnings = ImmutableArray.CreateBuilder<string>();
         if (judgement.Note is { } note)
         {
@@ -178,6 +189,8 @@ public static class LoopCheck
             EffortFigures = effortFigures,
             Checks = checks,
             Warnings = warnings.ToImmutable(),
+            LoadDisturbance = load,
+            Frequency = frequency,
         };
     }
 

@@ -53,4 +53,10 @@ public sealed record LoopCheckReport
 
     /// <summary>Plain warnings for the engineer.</summary>
     public required ImmutableArray<string> Warnings { get; init; }
+
+    /// <summary>The response to a unit load step at the plant input; null when the loop is unstable.</summary>
+    public LoadDisturbanceFigures? LoadDisturbance { get; init; }
+
+    /// <summary>Bandwidth and the peaks of |T| and |C·S|; null when the loop is unstable.</summary>
+    public FrequencyFigures? Frequency { get; init; }
 }

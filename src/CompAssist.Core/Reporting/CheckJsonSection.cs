@@ -113,6 +113,28 @@ public static class CheckJsonSection
             w.WriteNumber("unstableRoots", check.UnstableRootCount);
         }
 
+        if (check.Frequency is { } q)
+        {
+            w.WriteStartObject("frequency");
+            n(w, "bandwidth", q.Bandwidth);
+            n(w, "complementaryPeak", q.ComplementaryPeak);
+            n(w, "complementaryPeakFrequency", q.ComplementaryPeakFrequency);
+            n(w, "noisePeak", q.NoisePeak);
+            n(w, "noisePeakFrequency", q.NoisePeakFrequency);
+            w.WriteEndObject();
+        }
+
+        if (check.LoadDisturbance is { } d)
+        {
+            w.WriteStartObject("loadDisturbance");
+            w.WriteString("definition", "output for a unit step of load at the plant input (actuator units), reference 0: largest |y|, its time, y(inf), and the time after which |y - y(inf)| stays within the settling band times the peak; sampled at 2000 intervals over the step's horizon");
+            n(w, "peak", d.Peak);
+            n(w, "peakTime", d.PeakTime);
+            n(w, "offset", d.Offset);
+            n(w, "recoveryTime", d.RecoveryTime);
+            w.WriteEndObject();
+        }
+
         var e = check.EffortFigures;
         w.WriteStartObject("effort");
         n(w, "initial", e.Initial);

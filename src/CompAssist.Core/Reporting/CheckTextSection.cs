@@ -54,7 +54,19 @@ public static class CheckTextSection
             TextWrap.AppendTo(sb, $"none claimed: the closed loop is UNSTABLE ({check.UnstableRootCount} closed-loop root{(check.UnstableRootCount == 1 ? string.Empty : "s")} in the right half-plane or on the imaginary axis)");
         }
 
+        if (check.Frequency is { } f)
+        {
+            TextWrap.AppendTo(sb, $"bandwidth ωB = {N(f.Bandwidth, 4)} rad/s (−3 dB of T); peak |T| = {N(f.ComplementaryPeak, 4)} at {Frequency(f.ComplementaryPeakFrequency)}; noise to actuator peak |C·S| = {N(f.NoisePeak, 4)} at {Frequency(f.NoisePeakFrequency)}");
+        }
+
         sb.AppendLine();
+        if (check.LoadDisturbance is { } d)
+        {
+            sb.AppendLine("Load disturbance (a unit step at the plant input, reference 0)");
+            TextWrap.AppendTo(sb, $"peak |y| = {N(d.Peak, 4)} at {N(d.PeakTime, 3)} s; offset y(∞) = {N(d.Offset, 4)}{(d.Offset == 0 ? " (integral action)" : string.Empty)}; back within the band of the peak about it at {N(d.RecoveryTime, 4)} s");
+            sb.AppendLine();
+        }
+
         var e = check.EffortFigures;
         sb.AppendLine($"Actuator command for a reference step of {N(e.ReferenceStep, 4)}");
         var verdict = e.Saturates ? "SATURATES" : "within";
