@@ -62,6 +62,22 @@ public static class ProofDigest
             items.Add(new DigestItem(sweepNote, null));
         }
 
+        // Information last: a two-line status area shows the verdict, the requirements and the sweep first.
+        if (check.Stable && report.Design.SteadyState is null && Math.Abs(1 - check.Step.FinalValue) > 0.02)
+        {
+            items.Add(new DigestItem($"y(∞) {N(check.Step.FinalValue, 3)} ≠ 1", null));
+        }
+
+        if (check.LoadDisturbance is { } load)
+        {
+            items.Add(new DigestItem($"load peak {N(load.Peak, 3)}{(load.Offset == 0 ? string.Empty : $", offset {N(load.Offset, 3)}")}", null));
+        }
+
+        if (check.Frequency is { Bandwidth: var bandwidth } && double.IsFinite(bandwidth))
+        {
+            items.Add(new DigestItem($"ωB {N(bandwidth, 3)}", null));
+        }
+
         return items.ToImmutable();
     }
 
