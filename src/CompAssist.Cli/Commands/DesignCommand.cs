@@ -108,6 +108,7 @@ internal static class DesignCommand
         return input with
         {
             CompensatorType = type,
+            Prefilter = parse.GetValue(s.Prefilter) || input.Prefilter,
             Slow = input.Slow with
             {
                 ZeroFraction = parse.GetValue(s.ZeroFraction) ?? input.Slow.ZeroFraction,

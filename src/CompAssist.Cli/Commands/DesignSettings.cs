@@ -27,6 +27,8 @@ internal sealed class DesignSettings
 
     public RealOption MaxStageAngle { get; } = new("--max-stage-angle") { Description = "Largest lead angle per stage in degrees (default 60)." };
 
+    public Option<bool> Prefilter { get; } = new("--prefilter") { Description = "Add a reference prefilter F(s) that cancels the compensator's closed-loop zeros near the target (F(0)·T(0) = 1); the loop itself is unchanged." };
+
     public Option<bool> EqualFactor { get; } = new("--equal-factor") { Description = "Lead-lag: fix the gain from the error constant first and use one ratio for lead and lag." };
 
     public Option<string?> Kinds { get; } = new("--kinds") { Description = "Search several compensator types and keep the best, e.g. lead,lead-lag,pid (choices that do not apply to a type are reported as unused by it)." };
@@ -151,7 +153,7 @@ internal sealed class DesignSettings
     public void AddTo(Command command)
     {
         Loop.AddTo(command);
-        foreach (var option in new Option[] { Type, Kinds, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Corner, Objective, Save })
+        foreach (var option in new Option[] { Type, Kinds, Placement, Zero, Pole, Ratio, MaxStageAngle, ZeroFraction, AngleBudget, Margin, FilterRatio, EqualFactor, Prefilter, Corner, Objective, Save })
         {
             command.Options.Add(option);
         }

@@ -46,6 +46,9 @@ public sealed record CaseFile
     /// <summary>Lag, PI and PID choices: slow-zero fraction, angle budget, margin, derivative filter.</summary>
     public SlowPoleOptions Slow { get; init; } = new();
 
+    /// <summary>True to add a reference prefilter (see <see cref="Proof.ReferencePrefilter"/>).</summary>
+    public bool Prefilter { get; init; }
+
     /// <summary>Proof settings: reference step size, actuator limit, simulation length.</summary>
     public CheckOptions Check { get; init; } = new();
 

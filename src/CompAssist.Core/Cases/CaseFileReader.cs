@@ -44,6 +44,7 @@ namespace CompAssist.Core.Cases;
 /// margin = 1.1                     # safety factor on the lag ratio
 /// filter_ratio = 10                # PD/PID derivative filter pole at N times the zero (absent: ideal)
 /// equal_factor = false             # lead-lag: gain fixed first by the error constant, one ratio for both
+/// prefilter = false                # a reference prefilter cancelling the compensator zeros near the target
 /// [check]
 /// reference_step = 1.0             # size of the reference step for the actuator figures
 /// actuator_limit = 12.0            # largest |u| the actuator delivers (or output_limits)
@@ -60,7 +61,7 @@ public static partial class CaseFileReader
         [string.Empty] = ["format", "name", "description", "loop", "requirements", "compensator", "check"],
         ["loop"] = ["plant", "feedback", "sign", "pade_order"],
         ["requirements"] = ["overshoot_percent", "settling_time", "settling_band", "peak_time", "rise_time", "phase_margin_deg", "gain_margin_db", "delay_margin", "sensitivity_peak", "zeta", "natural_frequency", "target", "kp", "kv", "ka", "step_error", "ramp_error", "parabola_error"],
-        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio", "equal_factor"],
+        ["compensator"] = ["type", "placement", "zero", "pole", "ratio", "max_stage_angle_deg", "zero_fraction", "angle_budget_deg", "margin", "filter_ratio", "equal_factor", "prefilter"],
         ["check"] = ["reference_step", "actuator_limit", "output_limits", "operating_point", "vary"],
     };
 
@@ -346,6 +347,7 @@ public static partial class CaseFileReader
                     FilterRatio = Number(comp, "compensator", "filter_ratio"),
                     EqualFactor = comp is not null && comp.TryGetValue("equal_factor", out var ef) && ef is true,
                 },
+                Prefilter = comp is not null && comp.TryGetValue("prefilter", out var pf) && pf is true,
                 Check = new CheckOptions { ReferenceStep = referenceStep, ActuatorLimit = actuatorLimit, OutputLimits = outputLimits, OperatingPoint = operatingPoint },
                 Variations = variations.ToImmutable(),
             } is var result && Error is null ? (RequirementRanges.Check(result.Requirements) is { } bad ? Fail($"[requirements] {bad.Message}", bad.Hint) : result) : null;

@@ -65,6 +65,7 @@ public static class CaseFileWriter
         sb.AppendLine($"margin = {N(c.Slow.Margin)}");
         Optional(sb, "filter_ratio", c.Slow.FilterRatio);
         sb.AppendLine($"equal_factor = {(c.Slow.EqualFactor ? "true" : "false")}");
+        sb.AppendLine($"prefilter = {(c.Prefilter ? "true" : "false")}");
         sb.AppendLine();
         sb.AppendLine("[check]");
         sb.AppendLine($"reference_step = {N(c.Check.ReferenceStep)}");

@@ -206,6 +206,7 @@ public static class DesignJsonReport
         w.WriteEndObject();
 
         CheckJsonSection.Write(w, report.Check, report.Robustness);
+        PrefilterSection.Write(w, report);
         CheckJsonSection.WriteVerdict(w, report.Verdict);
         if (report.Search is { } search)
         {

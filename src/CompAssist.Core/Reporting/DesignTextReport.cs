@@ -137,6 +137,7 @@ public static class DesignTextReport
         sb.Append(SPlaneRenderer.Render(scene, view, 78, 20, style));
         sb.AppendLine();
         CheckTextSection.Append(sb, report.Check, report.Robustness, style);
+        PrefilterSection.Append(sb, report);
         CheckTextSection.AppendVerdict(sb, report.Verdict, report.Robustness);
         var warnings = proof.Warnings.AddRange(report.Check.Warnings);
         if (warnings.Length > 0)

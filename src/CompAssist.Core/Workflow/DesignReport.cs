@@ -17,6 +17,12 @@ public sealed record DesignReport(TargetSelection Selection, Design Design, Loop
     /// <summary>The search that chose this design's target and choices, when one ran.</summary>
     public Search.SearchOutcome? Search { get; init; }
 
+    /// <summary>The reference prefilter, when the case asks for one and it exists.</summary>
+    public Proof.ReferencePrefilter? Prefilter { get; init; }
+
+    /// <summary>Why no prefilter was made although the case asks for one (null otherwise).</summary>
+    public string? PrefilterNote { get; init; }
+
     /// <summary>When several kinds were searched: each kind's best, in the order asked (the winner's kind is this report's).</summary>
     public System.Collections.Immutable.ImmutableArray<Search.KindResult> KindsCompared { get; init; } = [];
 

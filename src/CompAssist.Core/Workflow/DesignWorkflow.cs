@@ -262,7 +262,10 @@ public static class DesignWorkflow
             }
 
             var locus = LocusEngine.Compute(loop, compensator);
-            return DesignRun.Success(new DesignReport(selection, design, proof, check, robustness, locus) { Search = search });
+            var (prefilter, why) = input.Prefilter && check.Stable
+                ? ReferencePrefilter.Design(loop, compensator, proof.Roots.Select(r => r.Value).ToImmutableArray(), design.Target.Point)
+                : (null, input.Prefilter ? "the closed loop is unstable" : null);
+            return DesignRun.Success(new DesignReport(selection, design, proof, check, robustness, locus) { Search = search, Prefilter = prefilter, PrefilterNote = why });
         }
         catch (RootFindingException e)
         {

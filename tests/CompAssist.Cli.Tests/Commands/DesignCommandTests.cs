@@ -333,6 +333,21 @@ public class DesignCommandTests
     }
 
     [Fact]
+    public void Design_Prefilter_CancelsThePiZeroAndReportsTheStepWithIt()
+    {
+        // The exact PI on exp(-0.1s)/(s-1) at −2 ± 2j has its zero at −1.1605 beside the target: F = 1.1605/(s + 1.1605)
+        // (F(0)·T(0) = 1 with T(0) = 1) takes the zero's overshoot out of the reference step.
+        var (code, output, error) = CliRunner.Run("design", "--plant", "exp(-0.1s)/(s-1)", "--type", "pi", "--target=-2,2", "--prefilter", "--json");
+        Assert.True(code is 0 or 4, error);
+        using var json = System.Text.Json.JsonDocument.Parse(output);
+        var prefilter = json.RootElement.GetProperty("prefilter");
+        Assert.InRange(prefilter.GetProperty("poles")[0].GetProperty("re").GetDouble(), -1.1606, -1.1605);
+        var with = prefilter.GetProperty("overshootPercent").GetDouble();
+        Assert.InRange(with, 0.0, 10.0);
+        Assert.True(json.RootElement.GetProperty("check").GetProperty("step").GetProperty("overshootPercent").GetDouble() > 40, "the zero's overshoot without F");
+    }
+
+    [Fact]
     public void Design_TwoSteadyStateRequirements_Refused()
     {
         var (code, _, error) = CliRunner.Run("design", "--plant", "1/(s(s+1))", "--type", "lag", "--kv", "5", "--ramp-error", "0.1");
