@@ -15,15 +15,15 @@ namespace CompAssist.Core.Tests.Proof;
 /// </summary>
 public class ReferencePrefilterTests
 {
-    private static TransferFunction Tf(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
+    private static TransferFunction Expression(string text) => ExpressionParser.Parse(text, requireProper: false).Value!;
 
     [Fact]
     public void Design_PiOnAFirstOrderPlant_LeavesThePureSecondOrderStep()
     {
         // 1/(s+1) with 3(s+2)/s: T = 3(s+2)/(s² + 4s + 6). F = 2/(s+2) leaves 6/(s² + 4s + 6): ωn = √6,
         // ζ = 4/(2√6) = 0.8165, overshoot e^(−πζ/√(1 − ζ²)) = 1.18 % (by hand), final value 1.
-        var loop = Loop.Create(Tf("1/(s+1)"));
-        var c = Tf("3(s+2)/s");
+        var loop = Loop.Create(Expression("1/(s+1)"));
+        var c = Expression("3(s+2)/s");
         var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
         var (prefilter, why) = ReferencePrefilter.Design(loop, c, roots, new Complex(-2, Math.Sqrt(2)));
         Assert.True(prefilter is not null, why);
@@ -47,8 +47,8 @@ public class ReferencePrefilterTests
         // A lag zero at −0.1 with its pole at −0.01 on 1/(s(s+1)) under gain 0.5: s³ + 1.01s² + 0.51s + 0.05 has a
         // real root near −0.125 (by hand: the cubic changes sign between −0.125 and −0.13), beside the zero; cancelling
         // the zero would leave that slow pole in the reference step (the step with F would settle in about 33 s).
-        var loop = Loop.Create(Tf("1/(s(s+1))"));
-        var c = Tf("0.5(s+0.1)/(s+0.01)");
+        var loop = Loop.Create(Expression("1/(s(s+1))"));
+        var c = Expression("0.5(s+0.1)/(s+0.01)");
         var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
         var (prefilter, why) = ReferencePrefilter.Design(loop, c, roots, new Complex(-0.45, 0.5));
         Assert.Null(prefilter);
