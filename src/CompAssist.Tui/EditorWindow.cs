@@ -343,6 +343,7 @@ internal sealed class EditorWindow : Runnable
         K(KeyScope.SPlane, "s", "search the region (as F9)", StartSearch, Key.S);
         K(KeyScope.SPlane, "0", "frame the picture around the target again", () => RefreshAll(reframe: true, refreshFields: false), Key.D0);
         K(KeyScope.SPlane, "a", "toggle plain ASCII / Unicode pictures", ToggleStyle, Key.A);
+        K(KeyScope.SPlane, "g", "reference prefilter on / off (cancels the compensator zeros near the target; F7 shows the step with it)", () => Act(() => Session.TogglePrefilter(), reframe: false), Key.G);
         K(KeyScope.SPlane, "?", "this list of keys", ShowHelp, new Key('?'));
         K(KeyScope.Handoff, "m", "next discretization method", () => CycleHandoff(method: 1), Key.M);
         K(KeyScope.Handoff, "n", "next number format (double, float, fixed16, fixed24, fixed32)", () => CycleHandoff(format: 1), Key.N);

@@ -109,6 +109,21 @@ public sealed class EditorWindowTests : IDisposable
     }
 
     [Fact]
+    public void PrefilterKey_OnThePicture_AddsThePrefilterAsOneUndoStep()
+    {
+        using var h = new EditorHarness(EditorHarness.Demo(folder));
+        Assert.False(h.Session.Case.Prefilter);
+        h.Press(Key.G);
+        Assert.True(h.Session.Case.Prefilter);
+        var report = h.Session.Latest.Report!;
+        // The demo lead's zero sits beside a slower closed-loop pole: the design says why there is no prefilter.
+        Assert.True(report.Prefilter is not null || report.PrefilterNote is not null);
+        Assert.Contains("prefilter on", h.Screen(), StringComparison.Ordinal);
+        h.Press(Key.Z.WithCtrl);
+        Assert.False(h.Session.Case.Prefilter);
+    }
+
+    [Fact]
     public void CtrlZ_AfterTwoMoves_UndoesOneAtATimeAndCtrlYRedoes()
     {
         using var h = new EditorHarness(EditorHarness.Demo(folder));

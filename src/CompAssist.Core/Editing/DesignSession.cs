@@ -222,6 +222,10 @@ public sealed class DesignSession
         Commit(Case with { Lead = Case.Lead with { Placement = next } }, $"placement {PlacementNames.NameOf(next)}", null);
     }
 
+    /// <summary>Adds or removes the reference prefilter (one undo step).</summary>
+    public void TogglePrefilter() =>
+        Commit(Case with { Prefilter = !Case.Prefilter }, Case.Prefilter ? "reference prefilter off" : "reference prefilter on", null);
+
     /// <summary>Undoes the last change. False when there is none.</summary>
     public bool Undo()
     {

@@ -62,6 +62,11 @@ public static class ProofDigest
             items.Add(new DigestItem(sweepNote, null));
         }
 
+        if (report.Prefilter is { } prefilter)
+        {
+            items.Add(new DigestItem($"with F: OS {N(prefilter.Step.OvershootPercent, 3)}% ts2% {N(prefilter.Step.SettlingTime2Percent, 3)}", null));
+        }
+
         // Information last: a two-line status area shows the verdict, the requirements and the sweep first.
         if (check.Stable && report.Design.SteadyState is null && Math.Abs(1 - check.Step.FinalValue) > 0.02)
         {
