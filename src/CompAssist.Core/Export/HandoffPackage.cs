@@ -150,7 +150,9 @@ public sealed record HandoffPackage(
         var pidPart = PidExport.Build(report, options, t, origin);
         files.AddRange(pidPart.Files);
         var pidNote = pidPart.Note;
-        foreach (var extra in new[] { pidNote, fixedNote }.Where(x => x.Length > 0))
+        var (prefilterFiles, prefilterNote) = PrefilterExport.Build(report, options, t, origin);
+        files.AddRange(prefilterFiles);
+        foreach (var extra in new[] { pidNote, fixedNote, prefilterNote }.Where(x => x.Length > 0))
         {
             note += " " + extra;
         }

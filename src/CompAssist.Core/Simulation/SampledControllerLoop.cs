@@ -52,6 +52,13 @@ public static class SampledControllerLoop
         var measuredNow = measuredDelay == 0 || (measuredPlace.Shift == 0 && measuredPlace.Offset == 0);
         var measured = new HeldInputTrack(CascadeRealization.Of(loop.PlantTimesFeedback.WithoutDelay()), t, measuredNow ? [] : [measuredPlace.Offset]);
 
+        // A static sensor (a gain, no delay) measures the output track itself: two open-loop propagations of an
+        // unstable plant drift apart by rounding (e^(t) times 1e-16 is 1 after 37 s at a pole at +1), and the
+        // output, never corrected by the feedback that reads the other, would diverge while the loop is stable.
+        var f = loop.Feedback;
+        var staticSensor = f.Poles.Length == 0 && f.Zeros.Length == 0 && f.Delay == 0;
+        var first = outputPlaces[0];
+
         var readings = new double[periods * outputOffsets.Length];
         var measuredReadings = new double[periods];
         var commands = ImmutableArray.CreateBuilder<double>(periods);
@@ -61,7 +68,10 @@ public static class SampledControllerLoop
         for (var j = 0; j < periods; j++)
         {
             var source = j + measuredPlace.Shift;
-            var m = measuredNow ? measured.ReadNow() : source >= 0 ? measuredReadings[source] : 0.0;
+            var firstPeriod = j + first.Shift;
+            var m = staticSensor
+                ? f.Gain * (plantDelay == 0 || (first.Shift == 0 && first.Offset == 0) ? output.ReadNow() : firstPeriod >= 0 ? readings[(firstPeriod * outputOffsets.Length) + outputIndex[0]] : 0.0)
+                : measuredNow ? measured.ReadNow() : source >= 0 ? measuredReadings[source] : 0.0;
             var command = law(reference, loop.SignFactor * m);
             var applied = computationDelay ? previousCommand : command;
             previousCommand = command;
@@ -69,6 +79,11 @@ public static class SampledControllerLoop
             measurements.Add(loop.SignFactor * m);
             var input = applied - operatingPoint + loadDisturbance;
             output.Advance(input, readings.AsSpan(j * outputOffsets.Length, outputOffsets.Length));
+            if (staticSensor)
+            {
+                continue;
+            }
+
             if (measuredNow)
             {
                 measured.Advance(input, []);

@@ -38,4 +38,26 @@ public class HandoffPackageTests
         Assert.False(package.SampledMeets);
         Assert.DoesNotContain(Advice(package), w => w.Contains("longer sample time", StringComparison.Ordinal) || w.Contains("lower sample rate", StringComparison.Ordinal) || w.Contains("more slowly", StringComparison.Ordinal) && !w.Contains("rather than sampling more slowly", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void Build_DesignWithAPrefilter_ExportsItsOwnCascadeThatCompilesStrictly()
+    {
+        // The exact PI on e^(−0.1s)/(s − 1) at −2 ± 2j with its zero −1.1605 cancelled by F = 1.1605/(s + 1.1605).
+        var text = "format = 1\n[loop]\nplant = \"exp(-0.1s)/(s-1)\"\n[requirements]\ntarget = [-2.0, 2.0]\n[compensator]\ntype = \"pi\"\nprefilter = true\n";
+        var (input, error) = CaseFileReader.Read(text, "pf.toml");
+        Assert.Null(error);
+        var report = DesignWorkflow.Run(input!).Report!;
+        Assert.NotNull(report.Prefilter);
+        var package = HandoffPackage.Build(report, new HandoffOptions { Name = "unst", SampleTime = 0.01 }, "pf").Value!;
+        Assert.Contains("unst_prefilter.c", package.Files.Keys);
+        Assert.Contains("unst_prefilter-vectors.csv", package.Files.Keys);
+        Assert.Contains("its DC gain as stored 1 against F(0) = 1", package.SampleTimeNote, StringComparison.Ordinal);
+        // Tustin of 1.1605/(s + 1.1605) at 10 ms: b0 = b1 = a·T/(2 + a·T), a1 = (a·T − 2)/(a·T + 2) (by hand).
+        var a = 1.1605468118678277 * 0.01;
+        var row = package.Files["unst_prefilter.c"].Split('\n').SkipWhile(l => !l.Contains("_b[", StringComparison.Ordinal)).Skip(1).First();
+        var b0 = double.Parse(row.Trim().TrimStart('{').Split(',')[0], System.Globalization.CultureInfo.InvariantCulture);
+        Tolerance.Close(a / (2 + a), b0, 1e-12, what: "b0 by hand");
+        var main = "#include \"unst_prefilter.h\"\nint main(void)\n{\n    unst_prefilter_state s;\n    unst_prefilter_init(&s);\n    return unst_prefilter_step(&s, 1.0) > 0.0 ? 0 : 1;\n}\n";
+        CCompiler.BuildAndRun(new Dictionary<string, string> { ["unst_prefilter.h"] = package.Files["unst_prefilter.h"], ["unst_prefilter.c"] = package.Files["unst_prefilter.c"], ["main.c"] = main });
+    }
 }

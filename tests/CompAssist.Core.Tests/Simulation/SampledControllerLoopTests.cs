@@ -87,4 +87,28 @@ public class SampledControllerLoopTests
         Tolerance.Close(0.5 * (1 - Math.Exp(-2 * 0.05 * 7)), run.Output.Values[7], 1e-12);
         Tolerance.Close(0.5, run.Output.Values[^1], 1e-6);
     }
+
+    [Fact]
+    public void Run_UnstablePlantOverALongHorizon_OutputStaysWithTheStabilisedLoop()
+    {
+        // e^(−0.1s)/(s − 1) under the PI 3.8494 + 4.4674/s (the exact PI at −2 ± 2j, PiDesignerTests) sampled at
+        // 10 ms, with forward integration: the loop is stable, so after 150 s the output must sit at the reference.
+        // Two separate open-loop propagations of the unstable plant (output and measurement) drift apart by
+        // e^(t)·1e-16 and the output read 5.8e22 % overshoot; the static sensor now reads the output itself.
+        var loop = Loop.Create(ExpressionParser.Parse("exp(-0.1s)/(s-1)", requireProper: true).Value!);
+        double integral = 0, t = 0.01;
+        double Law(double r, double m)
+        {
+            var e = r - m;
+            var u = (3.8494 * e) + integral;
+            integral += 4.4674 * t * e;
+            return u;
+        }
+
+        var run = SampledControllerLoop.Run(loop, Law, t, 15_000, 4, computationDelay: false, reference: 1.0, loadDisturbance: 0.0);
+        Tolerance.Close(1.0, run.Output.Values[^1], 0, 1e-9, "y at 150 s");
+        Assert.True(run.Output.Values.All(v => Math.Abs(v) < 3), "no divergence anywhere");
+        // The measurement handed to the law is the output (its delay inside) at the sampling instant.
+        Tolerance.Close(run.Output.Values[4 * 500], run.Measurements[500], 1e-12, what: "m(5 s) = y(5 s)");
+    }
 }
