@@ -95,6 +95,24 @@ internal sealed class DesignSettings
             }
         }
 
+        // A lead's placement uses only its own value: --zero (fixed-zero, cancel), --pole (fixed-pole), --ratio (ratio).
+        var lead = kind is Core.Synthesis.CompensatorKind.Lead or Core.Synthesis.CompensatorKind.LeadLag;
+        if (lead)
+        {
+            foreach (var (option, used) in new (Option Option, bool Used)[]
+            {
+                (Zero, placement is Core.Synthesis.LeadPlacement.FixedZero or Core.Synthesis.LeadPlacement.Cancel),
+                (Pole, placement == Core.Synthesis.LeadPlacement.FixedPole),
+                (Ratio, placement == Core.Synthesis.LeadPlacement.Ratio),
+            })
+            {
+                if (parse.GetResult(option) is { Implicit: false } && !used && !stray.Contains(option.Name))
+                {
+                    stray.Add($"{option.Name} (the {Core.Synthesis.PlacementNames.NameOf(placement)} placement has no use for it)");
+                }
+            }
+        }
+
         var slowZero = kind is Core.Synthesis.CompensatorKind.Lag or Core.Synthesis.CompensatorKind.LeadLag or Core.Synthesis.CompensatorKind.PI or Core.Synthesis.CompensatorKind.PID;
         if (parse.GetResult(AngleBudget) is { Implicit: false } && !slowZero)
         {

@@ -147,54 +147,38 @@ public static class SampledLoop
     }
 
     /// <summary>A difference equation run one sample at a time.</summary>
+    // Run as cascaded first- and second-order sections (transposed direct form II): at fast sampling the poles of one
+    // expanded difference equation cluster at z = 1 and its coefficients lose them (a heater loop at 10 µs read 2.7 %
+    // overshoot and 12.6 s settling for the 0.79 % and 4.88 s of the continuous loop).
     private sealed class Stream(DiscreteTransferFunction d)
     {
-        private readonly double[] _b = [.. d.Numerator];
-        private readonly double[] _a = [.. d.Denominator];
-        private readonly double[] _x = new double[d.Numerator.Length];
-        private readonly double[] _y = new double[d.Denominator.Length];
+        private readonly ImmutableArray<Section> _sections = SectionSplitter.Split(d);
+        private readonly double[] _s1 = new double[Math.Max(SectionSplitter.Split(d).Length, 1)];
+        private readonly double[] _s2 = new double[Math.Max(SectionSplitter.Split(d).Length, 1)];
 
         /// <summary>The output for input x without advancing (valid when b0 = 0 or x is the next input).</summary>
         public double Peek(double x)
         {
-            var acc = _b[0] * x;
-            for (var i = 1; i < _b.Length; i++)
+            for (var i = 0; i < _sections.Length; i++)
             {
-                acc += _b[i] * _x[i - 1];
+                x = (_sections[i].B0 * x) + _s1[i];
             }
 
-            for (var i = 1; i < _a.Length; i++)
-            {
-                acc -= _a[i] * _y[i - 1];
-            }
-
-            return acc;
+            return x;
         }
 
         public double Next(double x)
         {
-            var y = Peek(x);
-            for (var i = _x.Length - 1; i > 0; i--)
+            for (var i = 0; i < _sections.Length; i++)
             {
-                _x[i] = _x[i - 1];
+                var q = _sections[i];
+                var y = (q.B0 * x) + _s1[i];
+                _s1[i] = (q.B1 * x) - (q.A1 * y) + _s2[i];
+                _s2[i] = (q.B2 * x) - (q.A2 * y);
+                x = y;
             }
 
-            if (_x.Length > 0)
-            {
-                _x[0] = x;
-            }
-
-            for (var i = _y.Length - 1; i > 0; i--)
-            {
-                _y[i] = _y[i - 1];
-            }
-
-            if (_y.Length > 0)
-            {
-                _y[0] = y;
-            }
-
-            return y;
+            return x;
         }
     }
 }

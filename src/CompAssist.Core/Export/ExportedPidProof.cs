@@ -39,8 +39,8 @@ public sealed record ExportedPidProof(
     SampledControllerRun DisturbanceRun,
     ImmutableArray<RequirementCheck> Checks)
 {
-    /// <summary>The most sampling periods one run simulates.</summary>
-    public const int MaxPeriods = 200_000;
+    /// <summary>The most sampling periods one run simulates (as many as the sampled proof's longest record).</summary>
+    public const int MaxPeriods = 4_000_000;
 
     /// <summary>The same controller with the derivative on the other signal, when this one fails and that one meets (the recommendation).</summary>
     public ExportedPidProof? Alternative { get; init; }
@@ -156,12 +156,14 @@ public sealed record ExportedPidProof(
         return DiscreteTransferFunction.FromFactors(numerator.Leading, zeros, poles, t);
     }
 
-    // A load of a tenth of half the span between the limits, or (no limits) of the linear design's command peak.
+    // A load of a tenth of half the span between the limits, or (no limits) of the linear design's command peak,
+    // in the direction the actuator can oppose from u0 (a heater at 0 % cannot cool: its load is a cooling one).
     private static double LoadStep(PidImplementation controller, EffortFigures effort)
     {
         if (controller.UMax - controller.UMin < 1e8)
         {
-            return 0.1 * (controller.UMax - controller.UMin) / 2;
+            var size = 0.1 * (controller.UMax - controller.UMin) / 2;
+            return controller.UMax - controller.OperatingPoint >= controller.OperatingPoint - controller.UMin ? -size : size;
         }
 
         return double.IsFinite(effort.Peak) && effort.Peak > 0 ? 0.1 * effort.Peak : 1.0;

@@ -12,7 +12,7 @@ namespace CompAssist.Core.Proof;
 /// <param name="Bandwidth">ωB, rad/s: the first ω where |T(jω)| = |T(0)|/√2 (NaN when it never falls that far in the sweep).</param>
 /// <param name="ComplementaryPeak">max |T(jω)| (Mt).</param>
 /// <param name="ComplementaryPeakFrequency">Where it occurs, rad/s (0 when the largest value is at DC).</param>
-/// <param name="NoisePeak">max |C·S(jω)|, actuator units per measurement unit.</param>
+/// <param name="NoisePeak">max |C·S(jω)|, actuator units per measurement unit (+∞ for an improper C).</param>
 /// <param name="NoisePeakFrequency">Where it occurs, rad/s.</param>
 public sealed record FrequencyFigures(double Bandwidth, double ComplementaryPeak, double ComplementaryPeakFrequency, double NoisePeak, double NoisePeakFrequency)
 {
@@ -41,7 +41,8 @@ public sealed record FrequencyFigures(double Bandwidth, double ComplementaryPeak
         var start = scale * Math.Pow(10, -Decades / 2.0);
         var grid = Enumerable.Range(0, (Decades * PointsPerDecade) + 1).Select(i => start * Math.Pow(10, i / (double)PointsPerDecade)).ToArray();
         var (tPeak, tAt) = Peak(T, grid);
-        var (nPeak, nAt) = Peak(Cs, grid);
+        // An improper C (an ideal derivative) makes |C·S| grow without bound: no finite peak to find on a sweep.
+        var (nPeak, nAt) = compensator.RelativeDegree < 0 ? (double.PositiveInfinity, double.PositiveInfinity) : Peak(Cs, grid);
         return new FrequencyFigures(FirstBelowHalfPower(T, grid), tPeak, tAt, nPeak, nAt);
     }
 

@@ -78,10 +78,14 @@ public sealed record ReferencePrefilter(
         var output = Without(transfers.Output, cancelled, product / dc);
         var horizon = LoopCheck.Horizon(closedLoopPoles);
         var step = StepAnalysis.Measure(CascadeRealization.Of(output), closedLoopPoles, 1.0, horizon);
+        // The command with F: F·C/(1 ± C·G·H) — proper even for an ideal derivative when F cancels its zero.
         double high = double.NaN, low = double.NaN;
-        if (transfers.Effort is { } effort)
+        var c = loop.Rational(compensator);
+        var lead = loop.Characteristic(compensator).ExpandForSeeds().Leading;
+        var effort = TransferFunction.FromFactors(c.Gain / lead, c.Zeros.AddRange(loop.Rational(loop.Plant).Poles).AddRange(loop.Rational(loop.Feedback).Poles), closedLoopPoles);
+        var command = Without(effort, cancelled, product / dc);
+        if (command.IsProper)
         {
-            var command = Without(effort, cancelled, product / dc);
             (high, _, low, _) = StepAnalysis.Extremes(CascadeRealization.Of(command), closedLoopPoles, horizon);
         }
 

@@ -313,6 +313,9 @@ public class DesignCommandTests
     [InlineData("pi", "--placement bisector", "--placement does not apply to a pi design")]
     [InlineData("pi", "--ratio 5", "--ratio does not apply to a pi design")]
     [InlineData("lag", "--filter-ratio 10", "--filter-ratio does not apply to a lag design")]
+    [InlineData("lead", "--ratio 5", "--ratio (the bisector placement has no use for it)")]
+    [InlineData("lead", "--placement fixed-zero --zero=-1 --pole=-20", "--pole (the fixed-zero placement has no use for it)")]
+    [InlineData("lead-lag", "--ratio 10", "--ratio (the bisector placement has no use for it)")]
     public void Design_FlagForNoneOfTheKinds_ExitTwoWithTheReason(string type, string flags, string reason)
     {
         string[] args = ["design", "--plant", "5/(s(s+1)(s+5))", "--type", type, "--overshoot", "20", "--kv", "2", .. flags.Split(' ')];

@@ -56,4 +56,12 @@ public class DisturbanceAndFrequencyFiguresTests
         Assert.True(report.LoadDisturbance.Peak > 0.1);
         Assert.True(double.IsFinite(report.LoadDisturbance.RecoveryTime));
     }
+
+    [Fact]
+    public void Frequency_ImproperCompensator_NoisePeakIsUnbounded()
+    {
+        // C = 4(s + 2): C·S → 4s as ω → ∞; a sweep's edge value is no peak.
+        var report = LoopCheck.Run(LoopOf("1/(s(s+1))"), ExpressionParser.Parse("4(s+2)", requireProper: false).Value!, new CheckOptions());
+        Assert.True(double.IsPositiveInfinity(report.Frequency!.NoisePeak));
+    }
 }

@@ -65,4 +65,16 @@ public class ReferencePrefilterTests
         Assert.Null(error2);
         Assert.True(again!.Prefilter);
     }
+
+    [Fact]
+    public void Design_IdealPd_CommandWithTheFilterIsFinite()
+    {
+        // C = 3(s + 2.6667) on 1/(s(s+1)) (an ideal PD): F = 2.6667/(s + 2.6667) makes C·F = 8, so u(0+) = 8 (by hand).
+        var loop = Loop.Create(Expression("1/(s(s+1))"));
+        var c = Expression("3(s+2.6666666666666665)");
+        var roots = RootFinder.Find(loop.Characteristic(c)).Roots;
+        var (prefilter, why) = ReferencePrefilter.Design(loop, c, roots, new Complex(-2, 2));
+        Assert.True(prefilter is not null, why);
+        Tolerance.Close(8.0, prefilter.CommandHighest, 1e-9, what: "u(0+) = C·F = 8");
+    }
 }
