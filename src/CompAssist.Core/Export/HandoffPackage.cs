@@ -73,6 +73,13 @@ public sealed record HandoffPackage(
                 note += $"; {F(limit)} s still meets (a limit, not advice: it leaves no margin for what the model omits)";
             }
         }
+        else if (ladder.Rungs.Where(r => r.Meets).Select(r => (double?)r.SampleTime).Max() is { } meets)
+        {
+            // Some values meet, but a shorter one fails (coefficient quantization grows as the poles near z = 1):
+            // the longest value that meets, said as such, not the shortest value tried.
+            t = meets;
+            note = $"no value on the ladder meets with every shorter value meeting too (a shorter one fails, as stored in {options.Format}); the package uses T = {F(t)} s, the longest value that meets — do not sample faster with these coefficients";
+        }
         else
         {
             t = ladder.Rungs.Length > 0 ? ladder.Rungs[^1].SampleTime : ladder.Start;

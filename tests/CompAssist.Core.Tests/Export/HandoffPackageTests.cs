@@ -60,4 +60,21 @@ public class HandoffPackageTests
         var main = "#include \"unst_prefilter.h\"\nint main(void)\n{\n    unst_prefilter_state s;\n    unst_prefilter_init(&s);\n    return unst_prefilter_step(&s, 1.0) > 0.0 ? 0 : 1;\n}\n";
         CCompiler.BuildAndRun(new Dictionary<string, string> { ["unst_prefilter.h"] = package.Files["unst_prefilter.h"], ["unst_prefilter.c"] = package.Files["unst_prefilter.c"], ["main.c"] = main });
     }
+
+    [Fact]
+    public void Build_ShortRatesFailInTwelveBits_UsesTheLongestValueThatMeetsNotTheShortest()
+    {
+        // In 12-bit coefficients the heater PID's sections meet at 0.01 s but not at the shortest values (the poles
+        // crowd z = 1 beyond what 12 bits resolve): the package must not ship the shortest value tried, which fails.
+        var (input, error) = CaseFileReader.ReadFile(Path.Combine(Repository.Root(), "cases", "heater-stage.toml"));
+        Assert.Null(error);
+        var report = DesignWorkflow.Run(input!).Report!;
+        var package = HandoffPackage.Build(report, new HandoffOptions { Name = "heat", Format = NumberFormat.TryParse("fixed12")! }, "heater").Value!;
+        var meeting = package.Ladder.Rungs.Where(r => r.Meets).Select(r => r.SampleTime).ToList();
+        Assert.NotEmpty(meeting);
+        Assert.Null(package.Ladder.Recommended);
+        Assert.Equal(meeting.Max(), package.Sampled.SampleTime);
+        Assert.True(package.SampledMeets);
+        Assert.Contains("the longest value that meets", package.SampleTimeNote, StringComparison.Ordinal);
+    }
 }
