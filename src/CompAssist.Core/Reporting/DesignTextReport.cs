@@ -44,10 +44,11 @@ public static class DesignTextReport
             TextWrap.AppendTo(sb, $"region: {c.Description}; target has {N(c.Actual, 4)}, margin {Signed(Math.Abs(c.Margin) <= 1e-9 * Math.Max(1.0, Math.Abs(c.Actual)) ? 0.0 : c.Margin)}, {(c.Satisfied ? "inside" : "OUTSIDE")}", "  ", "    ");
         }
 
-        var p = requested.Predict();
-        sb.AppendLine("  second-order predictions (not measurements):");
+        // The predictions are those of the pole the design places (the check's "predicted" column uses it too).
+        var p = target.Predict();
+        sb.AppendLine(target.Point != requested.Point ? "  second-order predictions of the placed s* (not measurements):" : "  second-order predictions (not measurements):");
         sb.AppendLine(double.IsPositiveInfinity(p.PeakTime)
-            ? $"    overshoot 0 % (no visible peak: ζ = {N(requested.Zeta, 4)}), so no peak time and no 0–100 % rise"
+            ? $"    overshoot 0 % (no visible peak: ζ = {N(target.Zeta, 4)}), so no peak time and no 0–100 % rise"
             : $"    overshoot {N(p.OvershootPercent, 3)} %, peak time {N(p.PeakTime, 3)} s, rise 0–100 % {N(p.RiseTimeZeroToHundred, 3)} s");
         sb.AppendLine($"    settling {N(p.SettlingTime2Percent, 3)} s (2 % band, 4/σ) or {N(p.SettlingTime5Percent, 3)} s (5 % band, 3/σ)");
         sb.AppendLine();

@@ -351,6 +351,17 @@ public class DesignCommandTests
     }
 
     [Fact]
+    public void Design_TargetMovedByTheDesign_PredictionsAreThoseOfThePlacedPole()
+    {
+        // The pole-cancelling PI keeps ζ = 0.7 but moves to σ = 0.5: the prediction is that of the placed pole,
+        // overshoot e^(−πζ/√(1 − ζ²)) = 4.6 % and 4/σ = 8 s (common practice), not those of ωn = 1.
+        var (code, output, error) = CliRunner.Run("design", "--plant", "0.5/((s+0.1)(s+1))", "--type", "pi", "--placement", "cancel", "--zeta", "0.7", "--wn", "1");
+        Assert.True(code is 0 or 4, error);
+        Assert.Contains("second-order predictions of the placed s*", output, StringComparison.Ordinal);
+        Assert.Contains("settling 8 s (2 % band, 4/σ)", output, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void Design_TwoSteadyStateRequirements_Refused()
     {
         var (code, _, error) = CliRunner.Run("design", "--plant", "1/(s(s+1))", "--type", "lag", "--kv", "5", "--ramp-error", "0.1");
